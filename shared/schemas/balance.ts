@@ -1,0 +1,66 @@
+import { z } from 'zod';
+
+/** An exact rational written as text: "3", "-2", "1/2". */
+export const fractionTextSchema = z
+  .string()
+  .regex(/^-?\d+(\/\d+)?$/, 'Write an exact fraction such as 3, 1/2 or -3/2.');
+
+/** POST /api/v1/balance request. Public and stable: outside scripts use these field names. */
+export const balanceInputSchema = z.object({
+  equation: z.string().min(1, 'Type an equation.').max(10_000),
+  /** Coefficients to hold fixed, keyed by term index (from 0, in input order). */
+  fixed: z.record(z.string().regex(/^\d+$/, 'Term indexes are whole numbers from 0.'), fractionTextSchema).optional(),
+  /** Term index whose coefficient becomes 1 (others follow as exact fractions). */
+  normaliseTo: z.number().int().min(0).optional(),
+});
+export type BalanceInput = z.infer<typeof balanceInputSchema>;
+
+export const balanceTermSchema = z.object({
+  formula: z.string(),
+  hill: z.string(),
+  phase: z.string().nullable(),
+  descriptor: z.string().nullable(),
+  charge: z.number().int(),
+  side: z.enum(['reactant', 'product']),
+  coefficient: fractionTextSchema,
+});
+export type BalanceTerm = z.infer<typeof balanceTermSchema>;
+
+export const imbalanceRowSchema = z.object({
+  element: z.string(),
+  reactants: fractionTextSchema,
+  products: fractionTextSchema,
+});
+export type ImbalanceRow = z.infer<typeof imbalanceRowSchema>;
+
+export const balanceWarningSchema = z.object({
+  code: z.string(),
+  message: z.string(),
+  /** Term index the warning concerns, when it concerns one. */
+  term: z.number().int().optional(),
+  column: z.number().int().optional(),
+});
+
+/** POST /api/v1/balance reply. */
+export const balanceResultSchema = z.object({
+  status: z.enum(['balanced', 'multiple', 'impossible']),
+  equation: z.string(),
+  terms: z.array(balanceTermSchema),
+  asGiven: z.boolean(),
+  givenImbalance: z.array(imbalanceRowSchema).optional(),
+  dimension: z.number().int().optional(),
+  basis: z.array(z.array(fractionTextSchema)).optional(),
+  reason: z.string().optional(),
+  warnings: z.array(balanceWarningSchema),
+});
+export type BalanceResult = z.infer<typeof balanceResultSchema>;
+
+/** Details carried by a `parse_error`: where the input could not be read (line and column from 1). */
+export const parseErrorDetailsSchema = z.object({
+  line: z.number().int().min(1),
+  column: z.number().int().min(1),
+  offset: z.number().int().min(0),
+  excerpt: z.string(),
+  expected: z.array(z.string()),
+});
+export type ParseErrorDetails = z.infer<typeof parseErrorDetailsSchema>;
