@@ -52,6 +52,14 @@ export const balanceResultSchema = z.object({
   basis: z.array(z.array(fractionTextSchema)).optional(),
   reason: z.string().optional(),
   warnings: z.array(balanceWarningSchema),
+  /**
+   * ΔH of the returned equation in kJ per mole of reaction as written (negative = exothermic), when
+   * the input stated one (trailing ΔH or heat term) and the answer is a multiple of the input.
+   * Added by the chemistry core; optional, so older clients can ignore it.
+   */
+  enthalpy: z
+    .object({ value: z.number(), unit: z.literal('kJ/mol'), uncertainty: z.number().optional() })
+    .optional(),
 });
 export type BalanceResult = z.infer<typeof balanceResultSchema>;
 

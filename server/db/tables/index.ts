@@ -1,0 +1,10 @@
+// Every table, for drizzle-kit (migrations) and for the typed query API.
+export * from './roles';
+export * from './users';
+export * from './teams';
+export * from './sessions';
+export * from './api-tokens';
+export * from './invitations';
+export * from './password-resets';
+export * from './audit-log';
+export * from './notes';

@@ -1,0 +1,34 @@
+import { balanceInputSchema, balanceResultSchema } from '@shared/schemas/balance';
+import { balanceBatchInputSchema, balanceBatchResultSchema } from '@shared/schemas/balance-batch';
+import { defineRoute } from './registry';
+
+// TEMPORARY while the chemistry core is being written: loaded on first use so the server starts without it.
+const chemistry = () => import('@shared/chemistry/index');
+
+/** Public calculations: anyone (and any script) may balance equations, within a per-address rate. */
+export const balanceRoutes = [
+  defineRoute({
+    method: 'post',
+    path: '/balance',
+    summary: 'Balance a chemical equation with exact coefficients',
+    description: 'Unreadable text gives 400 parse_error with line, column and what was expected there.',
+    tags: ['calculations'],
+    access: 'public',
+    rateLimit: 'calc',
+    request: { body: balanceInputSchema },
+    responses: { 200: balanceResultSchema },
+    handler: async ({ body }) => (await chemistry()).balanceEquationText(body),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/balance/batch',
+    summary: 'Balance many equations, one per line',
+    description: 'Each line gets its result or its own parse error; one bad line does not fail the batch.',
+    tags: ['calculations'],
+    access: 'public',
+    rateLimit: 'calc',
+    request: { body: balanceBatchInputSchema },
+    responses: { 200: balanceBatchResultSchema },
+    handler: async ({ body }) => ({ results: (await chemistry()).parseEquationBatch(body.text) }),
+  }),
+];

@@ -1,0 +1,45 @@
+import { z } from 'zod';
+import { accountRoutes } from './account.routes';
+import { adminRoutes } from './admin.routes';
+import { balanceRoutes } from './balance.routes';
+import { healthRoutes } from './health.routes';
+import { invitationRoutes } from './invitations.routes';
+import { noteRoutes } from './notes.routes';
+import { buildOpenApiDocument } from './openapi';
+import { passwordResetRoutes } from './password-resets.routes';
+import { defineRoute, type AnyRoute } from './registry';
+import { sessionRoutes } from './session.routes';
+import { teamRoutes } from './teams.routes';
+
+const resourceRoutes: AnyRoute[] = [
+  ...healthRoutes,
+  ...sessionRoutes,
+  ...passwordResetRoutes,
+  ...invitationRoutes,
+  ...accountRoutes,
+  ...teamRoutes,
+  ...noteRoutes,
+  ...adminRoutes,
+  ...balanceRoutes,
+];
+
+/** The OpenAPI route describes every route in `routes` plus itself. */
+function openApiRoute(routes: () => readonly AnyRoute[]): AnyRoute {
+  let cached: object | undefined;
+  return defineRoute({
+    method: 'get',
+    path: '/openapi.json',
+    summary: 'This API, as an OpenAPI 3.1 document',
+    tags: ['system'],
+    access: 'public',
+    responses: { 200: z.record(z.string(), z.unknown()) },
+    handler: ({ deps }) => (cached ??= buildOpenApiDocument(routes(), deps.config.version)),
+  });
+}
+
+/** Every API route, in registry form. Tests may pass extra routes to createApp. */
+export function apiRoutes(extra: readonly AnyRoute[] = []): AnyRoute[] {
+  const list: AnyRoute[] = [];
+  list.push(...resourceRoutes, ...extra, openApiRoute(() => list));
+  return list;
+}

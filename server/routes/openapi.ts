@@ -1,0 +1,70 @@
+import { OpenAPIRegistry, OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
+import { errorEnvelopeSchema } from '@shared/schemas/errors';
+import { API_PREFIX, describeAccess, type AnyRoute } from './registry';
+
+const ERROR_DESCRIPTIONS: Record<number, string> = {
+  400: 'Invalid input (validation_failed, parse_error or bad_request).',
+  401: 'Not signed in, or wrong credentials.',
+  403: 'Signed in, but the role or origin does not allow this.',
+  404: 'No such resource.',
+  409: 'Conflicts with the current state.',
+  410: 'The link or token has expired or was used.',
+  413: 'Body too large.',
+  415: 'Body is not JSON.',
+  429: 'Too many requests; see Retry-After.',
+};
+
+function errorResponsesFor(route: AnyRoute): number[] {
+  const codes = [400];
+  if (route.access !== 'public') codes.push(401, 403);
+  if (route.path.includes(':')) codes.push(404);
+  if (route.request?.body) codes.push(413, 415);
+  if (route.rateLimit) codes.push(429);
+  return codes;
+}
+
+/** The OpenAPI 3.1 document for the given routes, built from the same definitions as the router. */
+export function buildOpenApiDocument(routes: readonly AnyRoute[], version: string): object {
+  const registry = new OpenAPIRegistry();
+  registry.registerComponent('securitySchemes', 'sessionCookie', { type: 'apiKey', in: 'cookie', name: 'tl_session' });
+  registry.registerComponent('securitySchemes', 'apiToken', { type: 'http', scheme: 'bearer', description: 'Personal API token "tl_…"' });
+  const errorSchema = errorEnvelopeSchema;
+
+  for (const route of routes) {
+    const responses: Record<string, { description: string; content?: Record<string, { schema: unknown }> }> = {};
+    for (const [status, schema] of Object.entries(route.responses)) {
+      responses[status] = schema
+        ? { description: 'Success', content: { 'application/json': { schema } } }
+        : { description: 'Success, no body' };
+    }
+    for (const status of errorResponsesFor(route)) {
+      responses[String(status)] ??= {
+        description: ERROR_DESCRIPTIONS[status] ?? 'Error',
+        content: { 'application/json': { schema: errorSchema } },
+      };
+    }
+    registry.registerPath({
+      method: route.method,
+      path: API_PREFIX + route.path.replace(/:(\w+)/g, '{$1}'),
+      summary: route.summary,
+      description: [route.description, `Access: ${describeAccess(route.access)}.`].filter(Boolean).join('\n\n'),
+      tags: route.tags,
+      security: route.access === 'public' ? [] : [{ sessionCookie: [] }, { apiToken: [] }],
+      'x-access': route.access,
+      request: {
+        ...(route.request?.params ? { params: route.request.params } : {}),
+        ...(route.request?.query ? { query: route.request.query } : {}),
+        ...(route.request?.body
+          ? { body: { required: true, content: { 'application/json': { schema: route.request.body } } } }
+          : {}),
+      },
+      // The generator accepts zod schemas or reference objects here.
+      responses: responses as never,
+    });
+  }
+  return new OpenApiGeneratorV31(registry.definitions).generateDocument({
+    openapi: '3.1.0',
+    info: { title: 'Thermoledger API', version, description: 'Reaction enthalpies a team can defend.' },
+    servers: [{ url: '/' }],
+  });
+}

@@ -1,0 +1,117 @@
+import type { BalanceResult } from '../schemas/balance';
+import { equationFromBalanceResult } from './equation-ops';
+import { chargeText, partsText } from './species';
+import type { EnthalpyValue, EquationModel, FormulaFormat, FormulaItem, FormulaPart, ParsedSpecies } from './types';
+
+const SUB = '₀₁₂₃₄₅₆₇₈₉';
+const SUP = '⁰¹²³⁴⁵⁶⁷⁸⁹';
+const toScript = (digits: string, table: string): string => digits.replace(/\d/g, (d) => table[Number(d)]!);
+
+function escapeHtml(text: string): string {
+  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+}
+
+function itemsIn(items: readonly FormulaItem[], sub: (digits: string) => string): string {
+  return items
+    .map((it) => {
+      const count = it.count === 1 ? '' : sub(String(it.count));
+      if (it.kind === 'element') return it.symbol + count;
+      const inner = itemsIn(it.items, sub);
+      return (it.bracket === '(' ? `(${inner})` : `[${inner}]`) + count;
+    })
+    .join('');
+}
+
+function partsIn(parts: readonly FormulaPart[], sub: (digits: string) => string, dot: string): string {
+  return parts.map((p, i) => (i > 0 && p.multiplier !== 1 ? String(p.multiplier) : '') + itemsIn(p.items, sub)).join(dot);
+}
+
+function phaseText(species: ParsedSpecies, html: boolean): string {
+  if (!species.phase) return '';
+  const descriptor = species.descriptor ? `, ${html ? escapeHtml(species.descriptor) : species.descriptor}` : '';
+  return `(${species.phase}${descriptor})`;
+}
+
+function speciesBody(species: ParsedSpecies, format: FormulaFormat): string {
+  const q = species.charge;
+  const mag = Math.abs(q) === 1 ? '' : String(Math.abs(q));
+  switch (format) {
+    case 'text':
+      return (species.electron ? 'e' : partsText(species.parts)) + chargeText(q) + phaseText(species, false);
+    case 'unicode': {
+      const charge = q === 0 ? '' : toScript(mag, SUP) + (q > 0 ? '⁺' : '⁻');
+      return (species.electron ? 'e' : partsIn(species.parts, (d) => toScript(d, SUB), '·')) + charge + phaseText(species, false);
+    }
+    case 'html': {
+      const charge = q === 0 ? '' : `<sup>${mag}${q > 0 ? '+' : '−'}</sup>`;
+      return (species.electron ? 'e' : partsIn(species.parts, (d) => `<sub>${d}</sub>`, '·')) + charge + phaseText(species, true);
+    }
+    case 'mhchem':
+      // mhchem writes the adduct dot as "*" and charges as ^2-.
+      return (species.electron ? 'e' : partsIn(species.parts, (d) => d, '*')) + (q === 0 ? '' : `^${mag}${q > 0 ? '+' : '-'}`) + phaseText(species, false);
+  }
+}
+
+/**
+ * Formats a species with its charge and phase:
+ * - 'text': plain ASCII caret notation that parses back ("SO4^2-(aq)", "CuSO4·5H2O(s)");
+ * - 'unicode': sub/superscript characters ("SO₄²⁻(aq)");
+ * - 'html': <sub>/<sup> markup, text escaped ("SO<sub>4</sub><sup>2−</sup>(aq)");
+ * - 'mhchem': LaTeX for the mhchem package ("\ce{SO4^2-(aq)}").
+ */
+export function formatFormula(species: ParsedSpecies, format: FormulaFormat): string {
+  const body = speciesBody(species, format);
+  return format === 'mhchem' ? `\\ce{${body}}` : body;
+}
+
+/** A number without float noise (12 significant digits), "-0" as "0". */
+function plainNumber(v: number): string {
+  const r = Number(v.toPrecision(12));
+  return Object.is(r, -0) ? '0' : String(r);
+}
+
+/**
+ * Formats ΔH (kJ/mol per mole of reaction as written) as ", ΔH = -285.8 kJ/mol" in the given
+ * notation (the leading ", " included for text/unicode/html; mhchem gives the \Delta H part).
+ */
+export function formatEnthalpy(enthalpy: Pick<EnthalpyValue, 'value' | 'uncertainty'>, format: FormulaFormat): string {
+  const value = plainNumber(enthalpy.value);
+  const unc = enthalpy.uncertainty === undefined ? '' : plainNumber(enthalpy.uncertainty);
+  switch (format) {
+    case 'text':
+      return `, ΔH = ${value}${unc ? ` ± ${unc}` : ''} kJ/mol`;
+    case 'unicode':
+      return `, ΔH = ${value.replace('-', '−')}${unc ? ` ± ${unc}` : ''} kJ/mol`;
+    case 'html':
+      return `, Δ<i>H</i> = ${value.replace('-', '−')}${unc ? ` ± ${unc}` : ''} kJ mol<sup>−1</sup>`;
+    case 'mhchem':
+      return `\\Delta H = \\pu{${value}${unc ? ` +- ${unc}` : ''} kJ mol^-1}`;
+  }
+}
+
+function isBalanceResult(eq: EquationModel | BalanceResult): eq is BalanceResult {
+  return 'status' in eq;
+}
+
+/**
+ * Formats a whole equation (a parsed equation, any `EquationModel`, or a `BalanceResult`):
+ * coefficients as exact fractions (1 omitted), species as `formatFormula`, the arrow (→ or ⇌ in
+ * unicode/html; -> or <=> in text and mhchem) and ΔH when known.
+ */
+export function formatEquation(eq: EquationModel | BalanceResult, format: FormulaFormat): string {
+  const model = isBalanceResult(eq) ? equationFromBalanceResult(eq) : eq;
+  const equilibrium = 'equilibrium' in model && model.equilibrium === true;
+  const side = (s: 'reactant' | 'product'): string =>
+    model.terms
+      .filter((t) => t.side === s)
+      .map((t) => (t.coefficient === '1' ? '' : `${t.coefficient} `) + speciesBody(t.species, format))
+      .join(' + ');
+  const arrow =
+    format === 'text' || format === 'mhchem' ? (equilibrium ? '<=>' : '->') : equilibrium ? '⇌' : '→';
+  const core = `${side('reactant')} ${arrow} ${side('product')}`;
+  if (format === 'mhchem') {
+    const tail = model.enthalpy ? ` \\quad ${formatEnthalpy(model.enthalpy, 'mhchem')}` : '';
+    return `\\ce{${core}}${tail}`;
+  }
+  return core + (model.enthalpy ? formatEnthalpy(model.enthalpy, format) : '');
+}

@@ -1,0 +1,31 @@
+import type { RouteRecordRaw } from 'vue-router';
+import type { RouteAccess } from './access';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Who may open the page; routes without it count as 'signed_in' (closed by default). */
+    access?: RouteAccess;
+    /** Shown in the browser tab. */
+    title?: string;
+    /** Pages for signed-out people (sign-in): a signed-in visitor goes home instead. */
+    guestOnly?: boolean;
+  }
+}
+
+/** The route table. Every page but the home page is loaded on demand. */
+export const routes: RouteRecordRaw[] = [
+  { path: '/', name: 'workbench', component: () => import('@/views/WorkbenchView.vue'), meta: { access: 'public', title: 'Workbench' } },
+  { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { access: 'public', title: 'Sign in', guestOnly: true } },
+  { path: '/reset-password', name: 'reset-password', component: () => import('@/views/ResetPasswordView.vue'), meta: { access: 'public', title: 'Reset password' } },
+  { path: '/invitations/:token', name: 'invitation', component: () => import('@/views/InvitationView.vue'), meta: { access: 'public', title: 'Invitation' } },
+  { path: '/account', name: 'account', component: () => import('@/views/AccountView.vue'), meta: { access: 'signed_in', title: 'Account' } },
+  { path: '/teams/:teamId', redirect: (to) => ({ name: 'team-notes', params: to.params }) },
+  { path: '/teams/:teamId/notes', name: 'team-notes', component: () => import('@/views/TeamNotesView.vue'), meta: { access: { team: 'viewer' }, title: 'Team notes' } },
+  { path: '/teams/:teamId/members', name: 'team-members', component: () => import('@/views/TeamMembersView.vue'), meta: { access: { team: 'viewer' }, title: 'Members' } },
+  { path: '/admin', redirect: { name: 'admin-users' } },
+  { path: '/admin/users', name: 'admin-users', component: () => import('@/views/AdminUsersView.vue'), meta: { access: { site: 'site_admin' }, title: 'Users' } },
+  { path: '/admin/teams', name: 'admin-teams', component: () => import('@/views/AdminTeamsView.vue'), meta: { access: { site: 'site_admin' }, title: 'Teams' } },
+  { path: '/admin/outbox', name: 'admin-outbox', component: () => import('@/views/OutboxView.vue'), meta: { access: { site: 'site_admin' }, title: 'Outbox' } },
+  { path: '/admin/audit-log', name: 'admin-audit-log', component: () => import('@/views/AuditLogView.vue'), meta: { access: { site: 'site_admin' }, title: 'Audit log' } },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { access: 'public', title: 'Not found' } },
+];

@@ -1,0 +1,144 @@
+import { randomUUID } from 'node:crypto';
+import { z } from 'zod';
+import type TestAgent from 'supertest/lib/agent';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { teamRoleAtLeast, type SiteRole, type TeamRole } from '@shared/schemas/roles';
+import { defineRoute, routeKey, type Access, type AnyRoute } from '../../server/routes/registry';
+import { startTestApp, type TestApp } from './helpers';
+
+// The library (curator routes) does not exist yet; this route exercises {site:'curator'} meanwhile.
+const curatorProbe = defineRoute({
+  method: 'get',
+  path: '/test/curator-probe',
+  summary: 'Test-only curator route',
+  tags: ['test'],
+  access: { site: 'curator' },
+  responses: { 200: z.object({ ok: z.literal(true) }) },
+  handler: () => ({ ok: true as const }),
+});
+
+/**
+ * The expected access of every route, written out by hand. Changing a route's access, adding a
+ * route or removing one must be mirrored here, or this test fails.
+ */
+const expectedAccess: Record<string, Access> = {
+  'GET /api/v1/health': 'public',
+  'GET /api/v1/openapi.json': 'public',
+  'POST /api/v1/session': 'public',
+  'GET /api/v1/session': 'public',
+  'DELETE /api/v1/session': 'public',
+  'POST /api/v1/password-resets': 'public',
+  'POST /api/v1/password-resets/complete': 'public',
+  'GET /api/v1/invitations/:token': 'public',
+  'POST /api/v1/invitations/:token/accept': 'public',
+  'GET /api/v1/account': 'signed_in',
+  'PATCH /api/v1/account': 'signed_in',
+  'POST /api/v1/account/password': 'signed_in',
+  'GET /api/v1/account/tokens': 'signed_in',
+  'POST /api/v1/account/tokens': 'signed_in',
+  'DELETE /api/v1/account/tokens/:tokenId': 'signed_in',
+  'GET /api/v1/teams/:teamId': { team: 'viewer' },
+  'GET /api/v1/teams/:teamId/members': { team: 'viewer' },
+  'PATCH /api/v1/teams/:teamId/members/:userId': { team: 'team_admin' },
+  'DELETE /api/v1/teams/:teamId/members/:userId': { team: 'team_admin' },
+  'GET /api/v1/teams/:teamId/invitations': { team: 'team_admin' },
+  'POST /api/v1/teams/:teamId/invitations': { team: 'team_admin' },
+  'DELETE /api/v1/teams/:teamId/invitations/:invitationId': { team: 'team_admin' },
+  'GET /api/v1/teams/:teamId/notes': { team: 'viewer' },
+  'POST /api/v1/teams/:teamId/notes': { team: 'member' },
+  'PATCH /api/v1/teams/:teamId/notes/:noteId': { team: 'member' },
+  'DELETE /api/v1/teams/:teamId/notes/:noteId': { team: 'member' },
+  'GET /api/v1/admin/users': { site: 'site_admin' },
+  'PATCH /api/v1/admin/users/:userId': { site: 'site_admin' },
+  'GET /api/v1/admin/teams': { site: 'site_admin' },
+  'POST /api/v1/admin/teams': { site: 'site_admin' },
+  'GET /api/v1/admin/outbox': { site: 'site_admin' },
+  'GET /api/v1/admin/audit-log': { site: 'site_admin' },
+  'POST /api/v1/balance': 'public',
+  'POST /api/v1/balance/batch': 'public',
+  'GET /api/v1/test/curator-probe': { site: 'curator' },
+};
+
+/** What each caller holds, as the demo seed sets it up (kestrel-bay is the team whose routes are called). */
+interface Caller {
+  name: string;
+  signedIn: boolean;
+  kestrelRole: TeamRole | null;
+  siteRoles: SiteRole[];
+}
+const callers: Caller[] = [
+  { name: 'anonymous', signedIn: false, kestrelRole: null, siteRoles: [] },
+  { name: 'viewer', signedIn: true, kestrelRole: 'viewer', siteRoles: [] },
+  { name: 'member', signedIn: true, kestrelRole: 'member', siteRoles: [] },
+  { name: 'team_admin', signedIn: true, kestrelRole: 'team_admin', siteRoles: [] },
+  { name: 'curator', signedIn: true, kestrelRole: 'member', siteRoles: ['curator'] },
+  { name: 'site_admin', signedIn: true, kestrelRole: null, siteRoles: ['site_admin'] },
+  { name: 'other_team', signedIn: true, kestrelRole: null, siteRoles: [] },
+  { name: 'member_token', signedIn: true, kestrelRole: 'member', siteRoles: [] },
+];
+
+function mayCall(access: Access, caller: Caller): boolean {
+  if (access === 'public') return true;
+  if (!caller.signedIn) return false;
+  if (access === 'signed_in') return true;
+  if ('site' in access) return caller.siteRoles.includes(access.site);
+  return caller.kestrelRole !== null && teamRoleAtLeast(caller.kestrelRole, access.team);
+}
+
+let t: TestApp;
+let routes: AnyRoute[];
+beforeAll(async () => {
+  t = await startTestApp({ extraRoutes: [curatorProbe] });
+  routes = t.app.locals.routes;
+});
+afterAll(async () => t?.close());
+
+/** A concrete URL for a route: the demo team's id, made-up ids elsewhere (their 404 still means "allowed"). */
+function urlFor(route: AnyRoute): string {
+  const path = route.path
+    .replace(':teamId', t.ids.teams.kestrel)
+    .replace(':token', 'x'.repeat(43))
+    .replace(/:(userId|noteId|invitationId|tokenId)/g, () => randomUUID());
+  return `/api/v1${path}`;
+}
+
+describe('route access table', () => {
+  it('lists every route in the registry, and nothing else', () => {
+    const registered = routes.map(routeKey).sort();
+    expect(registered).toEqual(Object.keys(expectedAccess).sort());
+  });
+
+  it('matches the access each route declares', () => {
+    for (const route of routes) expect({ route: routeKey(route), access: route.access }).toEqual({ route: routeKey(route), access: expectedAccess[routeKey(route)] });
+  });
+});
+
+describe('every route, for every kind of caller', () => {
+  async function agentFor(caller: Caller): Promise<{ agent: TestAgent; headers: Record<string, string> }> {
+    if (caller.name === 'anonymous') return { agent: t.anon(), headers: {} };
+    if (caller.name === 'member_token') return { agent: t.anon(), headers: { Authorization: `Bearer ${await t.tokenFor('member')}` } };
+    return { agent: await t.signIn(caller.name as Parameters<TestApp['signIn']>[0]), headers: {} };
+  }
+
+  for (const caller of callers) {
+    it(`gives ${caller.name} exactly the declared access`, async () => {
+      const { agent, headers } = await agentFor(caller);
+      // Signing out would end the caller's session for the rest of the walk: do it last.
+      const ordered = [...routes].sort((a, b) => Number(routeKey(a) === 'DELETE /api/v1/session') - Number(routeKey(b) === 'DELETE /api/v1/session'));
+      const mismatches: string[] = [];
+      for (const route of ordered) {
+        // An empty body: allowed callers get past the access check and stop at validation (400), so nothing changes.
+        let req = agent[route.method](urlFor(route)).set(headers);
+        if (route.method !== 'get' && route.method !== 'delete') req = req.send({});
+        const res = await req;
+        const allowed = mayCall(expectedAccess[routeKey(route)]!, caller);
+        const ok = allowed
+          ? res.status !== 401 && res.status !== 403
+          : res.status === (caller.signedIn ? 403 : 401);
+        if (!ok) mismatches.push(`${routeKey(route)} → ${res.status} ${JSON.stringify(res.body?.error ?? {})} (expected ${allowed ? 'allowed' : 'denied'})`);
+        if (res.status >= 500) mismatches.push(`${routeKey(route)} → server error ${JSON.stringify(res.body)}`);
+      }
+      expect(mismatches).toEqual([]);
+    });
+  }
+});

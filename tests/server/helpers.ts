@@ -1,0 +1,183 @@
+import { randomBytes } from 'node:crypto';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { sql } from 'drizzle-orm';
+import pg from 'pg';
+import request from 'supertest';
+import type TestAgent from 'supertest/lib/agent';
+import { createApp, type ThermoledgerApp } from '../../server/app';
+import { openDatabase, type OpenDatabase } from '../../server/db/client';
+import { runMigrations } from '../../server/db/migrate';
+import { DEMO_PASSWORD, seedDemo } from '../../server/db/seed';
+import type { AppConfig } from '../../server/env';
+import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
+import { createMailer } from '../../server/mail/mailer';
+import type { AnyRoute } from '../../server/routes/registry';
+
+/** The demo accounts by the role they play in tests. */
+export const demoUsers = {
+  viewer: 'vera.viewer@kestrel.example',
+  member: 'milo.member@kestrel.example',
+  team_admin: 'tara.admin@kestrel.example',
+  curator: 'cora.curator@kestrel.example',
+  site_admin: 'sam.siteadmin@kestrel.example',
+  other_team: 'lena.larch@larchmont.example',
+} as const;
+export type DemoRole = keyof typeof demoUsers;
+export { DEMO_PASSWORD };
+
+/** Configuration for tests: production-like, with generous sign-in limits unless a test lowers them. */
+export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
+  return {
+    nodeEnv: 'test',
+    publicUrl: 'http://thermoledger.test',
+    trustProxy: false,
+    signIn: { maxFailuresPerAccount: 5, maxFailuresPerAddress: 20, windowSeconds: 900 },
+    calcRateLimitPerMinute: 600,
+    session: { ttlMs: 30 * 86_400_000, idleMs: 72 * 3_600_000 },
+    checkResponses: true,
+    version: 'test',
+    ...overrides,
+  };
+}
+
+/** A fresh database for one test file: in-memory PGlite, or (DATABASE_URL set) a new database on that server. */
+export async function openTestDatabase(dataDir: string | 'memory://' = 'memory://'): Promise<OpenDatabase> {
+  const baseUrl = process.env['DATABASE_URL'];
+  if (!baseUrl) {
+    const open = await openDatabase({ kind: 'pglite', dataDir });
+    await runMigrations(open);
+    return open;
+  }
+  // Test files run in parallel forks: each gets its own database, dropped at close.
+  const name = `tl_test_${process.pid}_${randomBytes(4).toString('hex')}`;
+  const admin = new pg.Client({ connectionString: baseUrl });
+  await admin.connect();
+  await admin.query(`create database ${name}`);
+  await admin.end();
+  const url = new URL(baseUrl);
+  url.pathname = `/${name}`;
+  const open = await openDatabase({ kind: 'postgres', url: url.toString() });
+  await runMigrations(open);
+  return {
+    ...open,
+    async close() {
+      await open.close();
+      const dropper = new pg.Client({ connectionString: baseUrl });
+      await dropper.connect();
+      await dropper.query(`drop database if exists ${name} with (force)`);
+      await dropper.end();
+    },
+  };
+}
+
+export interface DemoIds {
+  teams: { kestrel: string; larchmont: string };
+  users: Record<DemoRole, string>;
+}
+
+export interface TestApp {
+  app: ThermoledgerApp;
+  /** Base URL of the listening server, e.g. http://127.0.0.1:40123. */
+  url: string;
+  open: OpenDatabase;
+  db: OpenDatabase['db'];
+  /** The fake SMTP server (port 0) capturing every message the app sends. */
+  mail: FakeSmtp;
+  config: AppConfig;
+  ids: DemoIds;
+  /** Empties every table, reseeds the demo data, clears mail and rate-limit counters. */
+  reset(): Promise<void>;
+  /** An agent signed in as the demo user, sending our own Origin header (as a browser would). */
+  signIn(role: DemoRole): Promise<TestAgent>;
+  /** An agent with no cookies, sending our own Origin header. */
+  anon(): TestAgent;
+  /** A fresh API token of the demo user. */
+  tokenFor(role: DemoRole): Promise<string>;
+  close(): Promise<void>;
+}
+
+const TABLES = 'audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
+
+async function readIds(open: OpenDatabase): Promise<DemoIds> {
+  const { teams, users } = await import('../../server/db/tables/index');
+  const teamRows = await open.db.select({ id: teams.id, slug: teams.slug }).from(teams);
+  const userRows = await open.db.select({ id: users.id, email: users.email }).from(users);
+  const team = (slug: string) => teamRows.find((t) => t.slug === slug)?.id ?? '';
+  const user = (email: string) => userRows.find((u) => u.email === email)?.id ?? '';
+  return {
+    teams: { kestrel: team('kestrel-bay'), larchmont: team('larchmont') },
+    users: Object.fromEntries(Object.entries(demoUsers).map(([role, email]) => [role, user(email)])) as Record<DemoRole, string>,
+  };
+}
+
+/**
+ * Starts the real app on a real database over real HTTP (port 0), with a fake SMTP server.
+ * Call once per test file (beforeAll) and `reset()` between tests.
+ */
+export async function startTestApp(
+  options: { config?: Partial<AppConfig>; extraRoutes?: readonly AnyRoute[]; open?: OpenDatabase } = {},
+): Promise<TestApp> {
+  const open = options.open ?? (await openTestDatabase());
+  const mail = await startFakeSmtp({ port: 0 });
+  const mailer = createMailer({ host: mail.host, port: mail.port, secure: false, from: 'Thermoledger <no-reply@thermoledger.test>' }, mail);
+  const config = testConfig(options.config);
+  const app = createApp({ db: open.db, mailer, config, clientDir: null, extraRoutes: options.extraRoutes ?? [] });
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  await seedDemo(open.db);
+
+  const anon = () => request.agent(url).set('Origin', url);
+  const t: TestApp = {
+    app,
+    url,
+    open,
+    db: open.db,
+    mail,
+    config,
+    ids: await readIds(open),
+    async reset() {
+      await open.db.execute(sql.raw(`truncate ${TABLES} restart identity cascade`));
+      await seedDemo(open.db);
+      t.ids = await readIds(open);
+      mail.clear();
+      app.locals.deps.limits.reset();
+    },
+    anon,
+    async signIn(role) {
+      const agent = anon();
+      const res = await agent.post('/api/v1/session').send({ email: demoUsers[role], password: DEMO_PASSWORD });
+      if (res.status !== 200) throw new Error(`sign-in as ${role} failed: ${res.status} ${JSON.stringify(res.body)}`);
+      return agent;
+    },
+    async tokenFor(role) {
+      const agent = await t.signIn(role);
+      const res = await agent.post('/api/v1/account/tokens').send({ name: `test token ${role}` });
+      if (res.status !== 201) throw new Error(`token for ${role} failed: ${res.status} ${JSON.stringify(res.body)}`);
+      return res.body.token as string;
+    },
+    async close() {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await mail.close();
+      await open.close();
+    },
+  };
+  return t;
+}
+
+/** The last captured message to `to`, or an error listing what did arrive. */
+export function lastMailTo(mail: FakeSmtp, to: string) {
+  const found = mail.list().filter((m) => m.to.includes(to)).at(-1);
+  if (!found) throw new Error(`no mail to ${to}; got: ${mail.list().map((m) => m.to.join(',')).join('; ') || 'none'}`);
+  return found;
+}
+
+/** The first URL in a text that starts with `prefix`. */
+export function linkIn(text: string, prefix: string): string {
+  const match = text.split(/\s+/).find((w) => w.startsWith(prefix));
+  if (!match) throw new Error(`no link starting ${prefix} in:\n${text}`);
+  return match;
+}
