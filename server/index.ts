@@ -42,7 +42,7 @@ async function main(): Promise<void> {
   );
   console.log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);
   for (const user of seed.users) {
-    const roles = [...user.teams.map((t) => `${t.role} of ${t.slug}`), ...user.siteRoles.map((r) => `site ${r}`)];
+    const roles = [...user.teams.map((t) => `${t.role} of ${t.slug}`), ...user.siteRoles.map((r) => `site role ${r}`)];
     console.log(`  ${user.email.padEnd(34)} ${roles.join(', ')}`);
   }
 

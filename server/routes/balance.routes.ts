@@ -1,9 +1,7 @@
+import { balanceEquationText, parseEquationBatch } from '@shared/chemistry/index';
 import { balanceInputSchema, balanceResultSchema } from '@shared/schemas/balance';
 import { balanceBatchInputSchema, balanceBatchResultSchema } from '@shared/schemas/balance-batch';
 import { defineRoute } from './registry';
-
-// TEMPORARY while the chemistry core is being written: loaded on first use so the server starts without it.
-const chemistry = () => import('@shared/chemistry/index');
 
 /** Public calculations: anyone (and any script) may balance equations, within a per-address rate. */
 export const balanceRoutes = [
@@ -17,7 +15,7 @@ export const balanceRoutes = [
     rateLimit: 'calc',
     request: { body: balanceInputSchema },
     responses: { 200: balanceResultSchema },
-    handler: async ({ body }) => (await chemistry()).balanceEquationText(body),
+    handler: ({ body }) => balanceEquationText(body),
   }),
   defineRoute({
     method: 'post',
@@ -29,6 +27,6 @@ export const balanceRoutes = [
     rateLimit: 'calc',
     request: { body: balanceBatchInputSchema },
     responses: { 200: balanceBatchResultSchema },
-    handler: async ({ body }) => ({ results: (await chemistry()).parseEquationBatch(body.text) }),
+    handler: ({ body }) => ({ results: parseEquationBatch(body.text) }),
   }),
 ];

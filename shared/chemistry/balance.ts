@@ -1,12 +1,12 @@
-import type { BalanceInput, BalanceResult, ImbalanceRow } from '../schemas/balance';
-import { findStrictlyPositive } from './cone';
+import type { BalanceInput, BalanceResult } from '../schemas/balance';
+import { findPositiveCombination } from './cone';
 import { elementName } from './elements';
 import { elementBalanceTable } from './element-table';
 import { BalanceInputError } from './errors';
 import { formatEquation } from './format';
-import { integerNullspace, primitive } from './nullspace';
+import { integerNullspace, primitive, type Nullspace } from './nullspace';
 import { parseEquation } from './parse';
-import { add, div, lcm, mul, parseRational, rat, ratText, ratToNumber, sign, type Rat } from './rational';
+import { add, div, lcm, mul, parseRational, rat, ratText, ratToNumber, type Rat } from './rational';
 import type { EnthalpyValue, ParsedEquation, ParseWarning, SpeciesTerm } from './types';
 
 /** Options of a balancing request (see `BalanceInput`). */
@@ -79,6 +79,21 @@ function listWords(words: string[]): string {
   return words.length <= 1 ? (words[0] ?? '') : `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
 }
 
+/** Whether Σ_j a_ij g_j = 0 for every row, exactly (numbers when safe, else BigInt). */
+function balancesExactly(rows: number[][], given: Rat[]): boolean {
+  if (given.every((g) => g.d === 1n && g.n < 1_000_000_000n)) {
+    const g = given.map((x) => Number(x.n));
+    // |a| and g below 1e9 each, at most a few hundred terms: sums stay exact in doubles.
+    if (rows.every((row) => row.every((a) => Math.abs(a) < 1e6))) {
+      return rows.every((row) => row.reduce((sum, a, j) => sum + a * g[j]!, 0) === 0);
+    }
+  }
+  let den = 1n;
+  for (const x of given) den = lcm(den, x.d);
+  const ints = given.map((x) => (x.n * den) / x.d);
+  return rows.every((row) => row.reduce((sum, a, j) => sum + BigInt(a) * ints[j]!, 0n) === 0n);
+}
+
 /** Reasons that need no algebra: an element or the charge that sits on one side only. */
 function oneSideReasons(keys: string[], rows: number[][], terms: SpeciesTerm[]): string[] {
   const reasons: string[] = [];
@@ -101,40 +116,32 @@ function oneSideReasons(keys: string[], rows: number[][], terms: SpeciesTerm[]):
   return reasons;
 }
 
-/** Rational vector → smallest whole numbers with the same ratios (entries assumed ≥ 0 or mixed). */
-function toPrimitive(v: Rat[]): bigint[] {
-  let l = 1n;
-  for (const x of v) l = lcm(l, x.d);
-  return primitive(v.map((x) => (x.n * l) / x.d));
-}
-
-function combine(basis: bigint[][], w: Rat[], n: number): Rat[] {
-  const out: Rat[] = new Array<Rat>(n).fill(rat(0n));
-  basis.forEach((b, l) => {
-    for (let j = 0; j < n; j++) out[j] = add(out[j]!, mul(rat(b[j]!), w[l]!));
-  });
-  return out;
-}
-
-function transpose(basis: bigint[][], n: number): bigint[][] {
-  return Array.from({ length: n }, (_, j) => basis.map((b) => b[j]!));
-}
-
-/** Positive example in the span of `basis` (primitive integers), null if none, undefined if undecided. */
-function positiveExample(basis: bigint[][], n: number): bigint[] | null | undefined {
+/**
+ * Positive example in the span of a kernel basis (primitive integers), or null if none exists.
+ * The basis is in free-column form (see `integerNullspace`), so with x = Σ c_f b_f the free
+ * entries are positive multiples of c_f and the search is a small exact LP on the pivot rows.
+ */
+function positiveExample(ns: Nullspace, n: number): bigint[] | null {
+  const { basis } = ns;
+  if (basis.length === 0) return null;
   if (basis.length === 1) {
     const v = basis[0]!;
     if (v.every((x) => x > 0n)) return v;
     if (v.every((x) => x < 0n)) return v.map((x) => -x);
     return null;
   }
-  // Fast path: the sum of the basis vectors (each has a positive free entry) is often positive.
+  // Fast path: the sum of the basis vectors (each positive at its own free column) is often positive.
   const sum = new Array<bigint>(n).fill(0n);
   for (const b of basis) for (let j = 0; j < n; j++) sum[j]! += b[j]!;
   if (sum.every((x) => x > 0n)) return primitive(sum);
-  const w = findStrictlyPositive(transpose(basis, n), basis.length);
-  if (w === null || w === undefined) return w;
-  return toPrimitive(combine(basis, w, n));
+  const pivotRows = ns.pivots.map((p) => basis.map((b) => b[p]!));
+  const c = findPositiveCombination(pivotRows, basis.length);
+  if (c === null) return null;
+  const x = new Array<bigint>(n).fill(0n);
+  basis.forEach((b, l) => {
+    for (let j = 0; j < n; j++) x[j]! += b[j]! * c[l]!;
+  });
+  return primitive(x);
 }
 
 interface Solved {
@@ -150,6 +157,7 @@ function solveFixed(rows: number[][], terms: SpeciesTerm[], fixed: FixedValue[])
   const n = terms.length;
   const aug = rows.map((r) => [...r, 0]);
   let kernel: bigint[][] = [];
+  let kernelNs: Nullspace | null = null;
   for (let f = 0; f < fixed.length; f++) {
     const { index, key, value } = fixed[f]!;
     const row = new Array<number>(n + 1).fill(0);
@@ -159,7 +167,9 @@ function solveFixed(rows: number[][], terms: SpeciesTerm[], fixed: FixedValue[])
       throw new BalanceInputError(`The coefficient for term ${index} is too large.`, `fixed.${key}`);
     }
     aug.push(row);
-    kernel = integerNullspace(aug, n + 1).basis;
+    const kns = integerNullspace(aug, n + 1);
+    kernelNs = kns;
+    kernel = kns.basis;
     const field = `fixed.${key}`;
     const withT = kernel.filter((v) => v[n] !== 0n);
     const others = fixed.slice(0, f).map((o) => `term ${o.index} = ${ratText(o.value)}`);
@@ -167,7 +177,7 @@ function solveFixed(rows: number[][], terms: SpeciesTerm[], fixed: FixedValue[])
     if (withT.length === 0) {
       throw new BalanceInputError(`No balancing has coefficient ${ratText(value)} for ${speciesLabel(terms[index]!, index)}${context}.`, field);
     }
-    const positive = positiveExample(kernel, n + 1);
+    const positive = positiveExample(kns, n + 1);
     if (positive === null) {
       throw new BalanceInputError(
         `With coefficient ${ratText(value)} for ${speciesLabel(terms[index]!, index)}${context}, some other coefficient would have to be zero or negative.`,
@@ -180,7 +190,7 @@ function solveFixed(rows: number[][], terms: SpeciesTerm[], fixed: FixedValue[])
   const free = kernel
     .filter((v) => v !== pivot)
     .map((v) => primitive(v.map((x, j) => x * pivot[n]! - pivot[j]! * v[n]!)).slice(0, n));
-  const example = positiveExample(kernel, n + 1);
+  const example = positiveExample(kernelNs!, n + 1);
   const scaleToT = (v: bigint[]): Rat[] => v.slice(0, n).map((x) => rat(x, v[n]!));
   if (free.length === 0) {
     return { status: 'balanced', coefficients: scaleToT(pivot[n]! < 0n ? pivot.map((x) => -x) : pivot), dimension: 0, warnings: [] };
@@ -228,10 +238,7 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
   }
 
   const given = terms.map((t) => parseRational(t.coefficient)!);
-  let givenDen = 1n;
-  for (const g of given) givenDen = lcm(givenDen, g.d);
-  const givenInt = given.map((g) => (g.n * givenDen) / g.d);
-  const asGiven = rows.every((row) => row.reduce((sum, a, j) => sum + BigInt(a) * givenInt[j]!, 0n) === 0n);
+  const asGiven = balancesExactly(rows, given);
 
   const ns = integerNullspace(rows, n);
   const k = ns.basis.length;
@@ -242,18 +249,15 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
       coeffs = coeffs.map((c) => div(c, pivot));
     }
     const coeffText = coeffs.map(ratText);
-    const model = terms.map((t, j) => ({ ...t, coefficient: coeffText[j]! }));
+    const model: SpeciesTerm[] = terms.map((t, j) => ({ species: t.species, side: t.side, coefficient: coeffText[j]!, coefficientWritten: true }));
     let enthalpy: EnthalpyValue | null = null;
     if (parsed.enthalpy && partial.status !== 'impossible' && coefficients) {
       const factor = div(coeffs[0]!, given[0]!);
-      const proportional = coeffs.every((c, j) => sign(mul(factor, given[j]!)) === sign(c) && ratText(mul(factor, given[j]!)) === ratText(c));
+      const proportional = coeffs.every((c, j) => ratText(mul(factor, given[j]!)) === coeffText[j]);
       if (proportional && asGiven) {
         const f = ratToNumber(factor);
-        enthalpy = {
-          value: parsed.enthalpy.value * f,
-          ...(parsed.enthalpy.uncertainty === undefined ? {} : { uncertainty: parsed.enthalpy.uncertainty * Math.abs(f) }),
-          stated: parsed.enthalpy.stated,
-        };
+        enthalpy = { value: parsed.enthalpy.value * f, stated: parsed.enthalpy.stated };
+        if (parsed.enthalpy.uncertainty !== undefined) enthalpy.uncertainty = parsed.enthalpy.uncertainty * Math.abs(f);
       } else {
         warnings.push({
           code: 'enthalpy_not_carried',
@@ -261,10 +265,8 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
         });
       }
     }
-    const givenImbalance: ImbalanceRow[] | undefined = asGiven
-      ? undefined
-      : elementBalanceTable(terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient })));
-    return {
+    const out: BalanceResult = {
+      status: partial.status,
       equation: formatEquation({ terms: model, enthalpy }, 'text'),
       terms: terms.map((t, j) => ({
         formula: t.species.formula,
@@ -276,12 +278,26 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
         coefficient: coeffText[j]!,
       })),
       asGiven,
-      ...(givenImbalance ? { givenImbalance } : {}),
-      dimension: k,
-      warnings: warnings.map(({ code, message, term, column }) => ({ code, message, ...(term === undefined ? {} : { term }), ...(column === undefined ? {} : { column }) })),
-      ...(enthalpy ? { enthalpy: { value: enthalpy.value, unit: 'kJ/mol' as const, ...(enthalpy.uncertainty === undefined ? {} : { uncertainty: enthalpy.uncertainty }) } } : {}),
-      ...partial,
+      dimension: partial.dimension ?? k,
+      warnings: warnings.map((w) => {
+        const plain: BalanceResult['warnings'][number] = { code: w.code, message: w.message };
+        if (w.term !== undefined) plain.term = w.term;
+        if (w.column !== undefined) plain.column = w.column;
+        return plain;
+      }),
     };
+    if (!asGiven) {
+      out.givenImbalance = elementBalanceTable(
+        terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient })),
+      );
+    }
+    if (partial.basis) out.basis = partial.basis;
+    if (partial.reason) out.reason = partial.reason;
+    if (enthalpy) {
+      out.enthalpy = { value: enthalpy.value, unit: 'kJ/mol' };
+      if (enthalpy.uncertainty !== undefined) out.enthalpy.uncertainty = enthalpy.uncertainty;
+    }
+    return out;
   };
   const basisText = (b: bigint[][]): string[][] => b.map((v) => v.map((x) => x.toString()));
 
@@ -311,7 +327,7 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
       null,
     );
   }
-  const example = positiveExample(ns.basis, n);
+  const example = positiveExample(ns, n);
   if (example === null) {
     let reason = 'No balancing has every coefficient positive: some species would have to change side.';
     if (k === 1) {

@@ -23,6 +23,7 @@ export interface BalanceRow {
  * Throws RangeError on an unreadable coefficient.
  */
 export function elementBalanceTable(terms: readonly CountedTerm[]): BalanceRow[] {
+  if (terms.every((t) => /^\d{1,9}$/.test(t.coefficient))) return wholeNumberTable(terms);
   const totals = new Map<string, { reactants: Rat; products: Rat }>();
   let charged = false;
   const bump = (key: string, side: Side, amount: Rat): void => {
@@ -51,4 +52,29 @@ export function elementBalanceTable(terms: readonly CountedTerm[]): BalanceRow[]
 /** True when every row of `elementBalanceTable(terms)` has equal sides. */
 export function isBalanced(terms: readonly CountedTerm[]): boolean {
   return elementBalanceTable(terms).every((r) => r.reactants === r.products);
+}
+
+// Same table with plain numbers when every coefficient is a small whole number (exact: all
+// products stay far below 2^53), avoiding BigInt work on the common path.
+function wholeNumberTable(terms: readonly CountedTerm[]): BalanceRow[] {
+  const totals = new Map<string, [number, number]>();
+  let charged = false;
+  for (const t of terms) {
+    const c = Number(t.coefficient);
+    const k = t.side === 'reactant' ? 0 : 1;
+    for (const symbol in t.composition) {
+      let row = totals.get(symbol);
+      if (!row) totals.set(symbol, (row = [0, 0]));
+      row[k] += c * t.composition[symbol]!;
+    }
+    if (t.charge !== 0) charged = true;
+  }
+  if (charged) {
+    const row: [number, number] = [0, 0];
+    for (const t of terms) row[t.side === 'reactant' ? 0 : 1] += Number(t.coefficient) * t.charge;
+    totals.set('charge', row);
+  }
+  const out: BalanceRow[] = [];
+  for (const [element, [r, p]] of totals) out.push({ element, reactants: String(r), products: String(p) });
+  return out;
 }

@@ -9,17 +9,23 @@ import type { Composition, FormulaItem, FormulaPart } from './types';
  * omitted. The electron (empty composition) gives "e".
  */
 export function hillFormula(composition: Composition): string {
-  const symbols = Object.keys(composition).filter((s) => (composition[s] ?? 0) !== 0);
+  const symbols: string[] = [];
+  for (const s in composition) if (composition[s] !== 0) symbols.push(s);
   if (symbols.length === 0) return 'e';
-  let ordered: string[];
-  if (symbols.includes('C')) {
-    const head = ['C', 'H', 'D', 'T'].filter((s) => symbols.includes(s));
-    const rest = symbols.filter((s) => !head.includes(s)).sort(compareSymbols);
-    ordered = [...head, ...rest];
-  } else {
-    ordered = symbols.sort(compareSymbols);
+  symbols.sort(compareSymbols);
+  let out = '';
+  if (composition.C) {
+    // Carbon first, then H, D, T; the rest stays alphabetical.
+    out = term('C', composition.C) + term('H', composition.H) + term('D', composition.D) + term('T', composition.T);
+    for (const s of symbols) if (s !== 'C' && s !== 'H' && s !== 'D' && s !== 'T') out += term(s, composition[s]);
+    return out;
   }
-  return ordered.map((s) => (composition[s] === 1 ? s : `${s}${composition[s]}`)).join('');
+  for (const s of symbols) out += term(s, composition[s]);
+  return out;
+}
+
+function term(symbol: string, count: number | undefined): string {
+  return !count ? '' : count === 1 ? symbol : symbol + String(count);
 }
 
 // Plain code-unit comparison: symbols are ASCII letters, "C" < "Ca" < "Cl" as Hill order requires.
@@ -30,12 +36,13 @@ function compareSymbols(a: string, b: string): number {
 /** Atom counts of a formula structure (groups and hydrate parts multiplied out). */
 export function compositionOf(parts: readonly FormulaPart[]): Composition {
   const out: Composition = {};
-  const walk = (items: readonly FormulaItem[], factor: number): void => {
-    for (const item of items) {
-      if (item.kind === 'element') out[item.symbol] = (out[item.symbol] ?? 0) + item.count * factor;
-      else walk(item.items, factor * item.count);
-    }
-  };
-  for (const part of parts) walk(part.items, part.multiplier);
+  for (const part of parts) addItems(out, part.items, part.multiplier);
   return out;
+}
+
+function addItems(out: Composition, items: readonly FormulaItem[], factor: number): void {
+  for (const item of items) {
+    if (item.kind === 'element') out[item.symbol] = (out[item.symbol] ?? 0) + item.count * factor;
+    else addItems(out, item.items, factor * item.count);
+  }
 }

@@ -8,6 +8,10 @@
 export interface Nullspace {
   rank: number;
   basis: bigint[][];
+  /** Pivot columns, in row order; `basis[l]` belongs to the l-th non-pivot ("free") column. */
+  pivots: number[];
+  /** Free columns: basis[l] is positive at free[l] and zero at the other free columns. */
+  free: number[];
 }
 
 class Overflow extends Error {}
@@ -139,5 +143,7 @@ export function integerNullspace(a: number[][], cols: number): Nullspace {
     if (v[f]! < 0n) basis[k] = v.map((x) => -x);
     k++;
   }
-  return { rank: pivots.length, basis };
+  const free: number[] = [];
+  for (let f = 0; f < cols; f++) if (!isPivot[f]) free.push(f);
+  return { rank: pivots.length, basis, pivots, free };
 }

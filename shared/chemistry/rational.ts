@@ -65,6 +65,8 @@ const VULGAR: Record<string, Rat> = {
  * Returns null when the text is not such a number (or has a zero denominator).
  */
 export function parseRational(text: string): Rat | null {
+  // Fast path: plain whole numbers, the common case for coefficients.
+  if (/^\d{1,15}$/.test(text)) return { n: BigInt(text), d: 1n };
   const t = text.trim();
   const v = VULGAR[t];
   if (v) return v;

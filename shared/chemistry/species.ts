@@ -7,14 +7,6 @@ import type { ChargeNotation, FormulaItem, FormulaPart, ParsedSpecies, ParseWarn
 // Homonuclear ions that are real and common, so reading `O2-` as O₂⁻ needs no warning.
 const PLAUSIBLE_HOMONUCLEAR = new Set(['O2-', 'O3-', 'N3-', 'I3-', 'Br3-', 'Cl3-', 'H2+', 'H3+', 'C2-']);
 
-function toItems(items: readonly AstItem[]): FormulaItem[] {
-  return items.map((it) =>
-    it.kind === 'element'
-      ? { kind: 'element', symbol: it.symbol, count: it.count }
-      : { kind: 'group', bracket: it.bracket, items: toItems(it.items), count: it.count },
-  );
-}
-
 function itemsText(items: readonly FormulaItem[]): string {
   return items
     .map((it) => {
@@ -76,7 +68,8 @@ export function buildSpecies(
     };
   }
 
-  let parts: FormulaPart[] = ast.parts.map((p) => ({ multiplier: p.multiplier, items: toItems(p.items) }));
+  // The grammar's items already have the FormulaItem shape (plus positions): share them.
+  let parts: FormulaPart[] = ast.parts as FormulaPart[];
   let charge = ast.charge ? chargeValue(ast.charge) : 0;
   let notation: ChargeNotation | null = ast.charge?.notation ?? null;
   const last = lastItem(ast);
@@ -87,10 +80,10 @@ export function buildSpecies(
       charge = ast.charge.sign * last.count;
       notation = 'after-bracket';
       const lastPart = parts[parts.length - 1]!;
-      const items = [...lastPart.items];
-      const g = items[items.length - 1]!;
-      items[items.length - 1] = { ...g, count: 1 };
-      parts = [...parts.slice(0, -1), { ...lastPart, items }];
+      const items = lastPart.items.slice();
+      const g = items[items.length - 1] as Extract<FormulaItem, { kind: 'group' }>;
+      items[items.length - 1] = { kind: 'group', bracket: g.bracket, items: g.items, count: 1 };
+      parts = [...parts.slice(0, -1), { multiplier: lastPart.multiplier, items }];
     } else {
       const typed = source.slice(ast.start, ast.charge.end);
       const single = ast.parts.length === 1 && ast.parts[0]!.items.length === 1 && last.kind === 'element';

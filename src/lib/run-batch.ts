@@ -36,7 +36,9 @@ export interface BatchRunOptions {
 /** Turns one core/server batch line into a table row, renumbered to the original input. */
 export function toBatchRow(item: BatchLine, originalLine: number): BatchRow {
   if ('error' in item) {
-    return { line: originalLine, source: item.source, status: 'error', equationHtml: null, equationText: null, message: item.error.message, column: item.error.details.column };
+    // The core names the place within the chunk it was given; the row states the input's own line and column instead.
+    const message = item.error.message.replace(/\s+at (line \d+, )?column \d+\s*$/, '');
+    return { line: originalLine, source: item.source, status: 'error', equationHtml: null, equationText: null, message, column: item.error.details.column };
   }
   const r = item.result;
   const balanced = r.status === 'balanced';

@@ -45,8 +45,10 @@ describe('PGlite on disk', () => {
     const open1 = await openDatabase({ kind: 'pglite', dataDir });
     await runMigrations(open1);
     await open1.close();
-    writeFileSync(path.join(dataDir, 'pglite', 'postmaster.pid'), '-42\n/tmp/pglite/base\n');
+    const pidFile = path.join(dataDir, 'pglite', 'postmaster.pid');
+    writeFileSync(pidFile, '-42\n/tmp/pglite/base\n');
     const open2 = await openDatabase({ kind: 'pglite', dataDir });
+    expect(existsSync(pidFile)).toBe(false);
     const { users } = await import('../../server/db/tables/index');
     await expect(open2.db.select().from(users)).resolves.toEqual([]);
     await open2.close();

@@ -151,7 +151,7 @@ describe('balanceEquationText — outcomes', () => {
     expect(r.dimension).toBe(0);
   });
 
-  it('detects a family with no positive member (exact Fourier–Motzkin check)', () => {
+  it('detects a family with no positive member (exact simplex check)', () => {
     // Kernel of dimension 2, no species always zero, but O balance needs 2x(O2) + 3x(O3) = −x(H2O):
     // no balancing has all coefficients positive (checked by hand).
     const r = balance('H2O2 + O2 + O3 -> H2O');
@@ -161,7 +161,7 @@ describe('balanceEquationText — outcomes', () => {
   });
 
   it('finds a positive member of a family when the basis vectors are not positive', () => {
-    // Basis (free columns left to right) has negative entries; the sum is checked, then FM.
+    // Basis (free columns left to right) has negative entries; the sum is checked, then the exact LP.
     const r = balance('H2O + O2 -> H2O2 + O3 + H2');
     expect(r.status).toBe('multiple');
     expect(r.terms.every((t) => /^\d+$/.test(t.coefficient) && t.coefficient !== '0')).toBe(true);

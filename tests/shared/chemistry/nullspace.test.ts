@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import Fraction from 'fraction.js';
 import { describe, expect, it } from 'vitest';
+import { findPositiveCombination, findStrictlyPositive } from '@shared/chemistry/cone';
 import { integerNullspace } from '@shared/chemistry/nullspace';
 
 /** Rank by plain Gaussian elimination on fraction.js — an independent reference implementation. */
@@ -52,5 +53,37 @@ describe('integerNullspace', () => {
     const v = ns.basis[0]!;
     expect(BigInt(big) * v[0]! + BigInt(big + 1) * v[1]! + 3n * v[2]!).toBe(0n);
     expect(BigInt(big - 7) * v[0]! + 5n * v[1]! + BigInt(big) * v[2]!).toBe(0n);
+  });
+});
+
+describe('findPositiveCombination', () => {
+  it("agrees with Fourier–Motzkin elimination on feasibility, and its answers are positive", () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 4 }).chain((k) =>
+          fc.tuple(fc.constant(k), fc.array(fc.array(fc.integer({ min: -5, max: 5 }).map(BigInt), { minLength: k, maxLength: k }), { minLength: 1, maxLength: 5 })),
+        ),
+        ([k, m]) => {
+          const c = findPositiveCombination(m, k);
+          // FM reference over all constraints: c_j ≥ 1 and M c ≥ 1.
+          const q = [...Array.from({ length: k }, (_, j) => Array.from({ length: k }, (_, l) => (l === j ? 1n : 0n))), ...m];
+          const w = findStrictlyPositive(q, k);
+          expect(c === null).toBe(w === null);
+          if (c) {
+            for (const x of c) expect(x >= 1n).toBe(true);
+            for (const row of m) {
+              let num = 0n;
+              let den = 1n;
+              for (let j = 0; j < k; j++) {
+                num += row[j]! * c[j]!;
+
+              }
+              expect(num > 0n).toBe(true);
+            }
+          }
+        },
+      ),
+      { numRuns: 500 },
+    );
   });
 });
