@@ -8,7 +8,9 @@ const flip = (s: Side): Side => (s === 'reactant' ? 'product' : 'reactant');
 
 /**
  * The reverse reaction: products become reactants (products listed first) and ΔH changes sign
- * (Hess's law: ΔH(reverse) = −ΔH(forward)). Pure: returns a new model.
+ * (Hess's law: ΔH(reverse) = −ΔH(forward)). Pure: returns a new model. Only `terms` and
+ * `enthalpy` change; fields describing the original text (a ParsedEquation's `source`,
+ * `heatTerms`, `statedEnthalpy`) are carried over unchanged.
  */
 export function reverseEquation<T extends EquationModel>(eq: T): T {
   const terms = [...eq.terms.filter((t) => t.side === 'product'), ...eq.terms.filter((t) => t.side === 'reactant')].map((t) => ({

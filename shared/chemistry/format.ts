@@ -1,6 +1,5 @@
 import type { BalanceResult } from '../schemas/balance';
 import { equationFromBalanceResult } from './equation-ops';
-import { chargeText, partsText } from './species';
 import type { EnthalpyValue, EquationModel, FormulaFormat, FormulaItem, FormulaPart, ParsedSpecies } from './types';
 
 const SUB = '₀₁₂₃₄₅₆₇₈₉';
@@ -37,7 +36,8 @@ function speciesBody(species: ParsedSpecies, format: FormulaFormat): string {
   const mag = Math.abs(q) === 1 ? '' : String(Math.abs(q));
   switch (format) {
     case 'text':
-      return (species.electron ? 'e' : partsText(species.parts)) + chargeText(q) + phaseText(species, false);
+      // `formula` is already the plain caret text of structure and charge.
+      return species.formula + phaseText(species, false);
     case 'unicode': {
       const charge = q === 0 ? '' : toScript(mag, SUP) + (q > 0 ? '⁺' : '⁻');
       return (species.electron ? 'e' : partsIn(species.parts, (d) => toScript(d, SUB), '·')) + charge + phaseText(species, false);

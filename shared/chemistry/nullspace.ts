@@ -119,31 +119,67 @@ export function integerNullspace(a: number[][], cols: number): Nullspace {
   }
   const isPivot = new Array<boolean>(cols).fill(false);
   for (const c of pivots) isPivot[c] = true;
+  const basis = buildBasis(m, pivots, isPivot, cols);
+  const free: number[] = [];
+  for (let f = 0; f < cols; f++) if (!isPivot[f]) free.push(f);
+  return { rank: pivots.length, basis, pivots, free };
+}
+
+function gcdNum(a: number, b: number): number {
+  a = Math.abs(a);
+  b = Math.abs(b);
+  while (b !== 0) [a, b] = [b, a % b];
+  return a;
+}
+
+/**
+ * Row r of the eliminated matrix reads p_r x_{c_r} + Σ_free m[r][f] x_f = 0. For each free column
+ * f: x_f = L (lcm of the pivots), x_{c_r} = −m[r][f]·L/p_r, then divide by the gcd. Plain numbers
+ * while every product is a safe integer, BigInt otherwise. The free entry ends up positive.
+ */
+function buildBasis(m: (number | bigint)[][], pivots: number[], isPivot: boolean[], cols: number): bigint[][] {
   const basis: bigint[][] = [];
+  if (typeof m[0]?.[0] === 'number' || m.length === 0) {
+    const mm = m as number[][];
+    let l = 1;
+    for (let r = 0; r < pivots.length; r++) l = (l / gcdNum(l, mm[r]![pivots[r]!]!)) * Math.abs(mm[r]![pivots[r]!]!);
+    let safe = Number.isSafeInteger(l);
+    for (let f = 0; f < cols && safe; f++) {
+      if (isPivot[f]) continue;
+      const v = new Array<number>(cols).fill(0);
+      v[f] = l;
+      let g = l;
+      for (let r = 0; r < pivots.length; r++) {
+        const product = -mm[r]![f]! * l;
+        const x = product / mm[r]![pivots[r]!]!;
+        if (!Number.isSafeInteger(product) || !Number.isInteger(x)) {
+          safe = false;
+          break;
+        }
+        v[pivots[r]!] = x;
+        g = gcdNum(g, x);
+      }
+      if (safe) basis.push(v.map((x) => BigInt(x / g)));
+    }
+    if (safe) return basis;
+    basis.length = 0;
+  }
+  let l = 1n;
+  for (let r = 0; r < pivots.length; r++) {
+    const p = BigInt(m[r]![pivots[r]!]!);
+    l = (l / gcdBig(l, p)) * (p < 0n ? -p : p);
+  }
   for (let f = 0; f < cols; f++) {
     if (isPivot[f]) continue;
-    // Row r reads p_r x_{c_r} + Σ_free m[r][f] x_f = 0; pick x_f = L (lcm of pivots) and solve.
-    let l = 1n;
-    for (let r = 0; r < pivots.length; r++) {
-      const p = BigInt(m[r]![pivots[r]!]!);
-      l = (l / gcdBig(l, p)) * (p < 0n ? -p : p);
-    }
     const v = new Array<bigint>(cols).fill(0n);
     v[f] = l;
     for (let r = 0; r < pivots.length; r++) {
       const p = BigInt(m[r]![pivots[r]!]!);
       v[pivots[r]!] = (-BigInt(m[r]![f]!) * l) / p;
     }
-    basis.push(primitive(v).map((x, i) => (i === f ? x : x)));
+    let g = 0n;
+    for (const x of v) g = gcdBig(g, x);
+    basis.push(v.map((x) => x / g));
   }
-  // primitive() makes the first non-zero entry positive; re-orient so the free entry is positive.
-  for (let k = 0, f = 0; f < cols; f++) {
-    if (isPivot[f]) continue;
-    const v = basis[k]!;
-    if (v[f]! < 0n) basis[k] = v.map((x) => -x);
-    k++;
-  }
-  const free: number[] = [];
-  for (let f = 0; f < cols; f++) if (!isPivot[f]) free.push(f);
-  return { rank: pivots.length, basis, pivots, free };
+  return basis;
 }

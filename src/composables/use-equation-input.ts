@@ -1,4 +1,4 @@
-import { computed, onBeforeUnmount, ref, shallowRef, watch, type Ref } from 'vue';
+import { computed, onScopeDispose, ref, shallowRef, watch, type Ref } from 'vue';
 import { balanceEquationText, ChemistryError, type BalanceResult } from '@shared/chemistry/index';
 import type { BalanceInput } from '@shared/schemas/balance';
 import { balanceEquation } from '@/api/balance';
@@ -101,7 +101,8 @@ export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>
     { immediate: true, deep: true },
   );
 
-  onBeforeUnmount(() => {
+  // Runs when the owning component (or effect scope) goes away.
+  onScopeDispose(() => {
     clearTimeout(timer);
     controller?.abort();
   });

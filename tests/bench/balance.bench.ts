@@ -19,19 +19,20 @@ const TYPICAL = [
 // 30 species: a fuel blend burnt in air with by-products (several independent balancings).
 const THIRTY =
   'CH4 + C2H6 + C3H8 + C4H10 + C5H12 + C6H14 + C7H16 + C8H18 + C9H20 + C10H22 + C2H4 + C3H6 + C6H6 + C7H8 + CH3OH + C2H5OH + H2S + NH3 + O2 + N2 ' +
-  '-> CO2 + H2O + SO2 + NO + NO2 + CO + N2O + SO3 + H2 + Ar'.replace(' + Ar', ' + HNO3');
+  '-> CO2 + H2O + SO2 + NO + NO2 + CO + N2O + SO3 + H2 + HNO3';
 
 const HARD = {
   'C57H110O6 combustion': 'C57H110O6 + O2 -> CO2 + H2O',
-  'redox with a dozen ions': 'MnO4^- + Cr^3+ + Fe^2+ + C2O4^2- + H^+ + Cl^- + Na^+ -> Mn^2+ + Cr2O7^2- + Fe^3+ + CO2 + H2O + Cl2 + Na^+ + Cl^-'.replace(' + Na^+ + Cl^-', ''),
+  // 12 species, 9 of them ions; several independent balancings, so the exact LP runs too.
+  'redox with a dozen ions': 'MnO4^- + Fe^2+ + Cr2O7^2- + C2O4^2- + H^+ + Cl^- -> Mn^2+ + Fe^3+ + Cr^3+ + CO2 + H2O + Cl2',
   'ferrocyanide–permanganate (9 species)': 'K4[Fe(CN)6] + KMnO4 + H2SO4 -> KHSO4 + Fe2(SO4)3 + MnSO4 + HNO3 + CO2 + H2O',
   '30 species': THIRTY,
 };
 
 describe('parse and balance, typical equations (≤ 8 species)', () => {
-  let i = 0;
-  bench('one typical equation per iteration (cycling through 10)', () => {
-    balanceEquationText({ equation: TYPICAL[i++ % TYPICAL.length]! });
+  // One iteration = all 10 typical equations: equations per second = hz × 10.
+  bench('10 typical equations per iteration (equations/s = hz × 10)', () => {
+    for (const equation of TYPICAL) balanceEquationText({ equation });
   });
 });
 

@@ -24,7 +24,7 @@ describe('signing in and what each role sees', () => {
   it('sends an anonymous visitor to sign-in and back to the page afterwards', async () => {
     const { page } = browser;
     await page.goto('/account');
-    await page.waitForURL(/\/sign-in\?redirect=%2Faccount/);
+    await page.waitForURL((url) => url.pathname === '/sign-in' && url.searchParams.get('redirect') === '/account');
     await page.locator('[data-testid="sign-in-email"] input').fill(demo.viewer);
     await page.locator('[data-testid="sign-in-password"] input').fill(demoPassword);
     await page.getByTestId('sign-in-submit').click();

@@ -39,20 +39,6 @@ describe('PGlite on disk', () => {
       await second.close();
     }
   });
-
-  it('removes a stale postmaster.pid left by a crash before opening', async () => {
-    const dataDir = tempDir();
-    const open1 = await openDatabase({ kind: 'pglite', dataDir });
-    await runMigrations(open1);
-    await open1.close();
-    const pidFile = path.join(dataDir, 'pglite', 'postmaster.pid');
-    writeFileSync(pidFile, '-42\n/tmp/pglite/base\n');
-    const open2 = await openDatabase({ kind: 'pglite', dataDir });
-    expect(existsSync(pidFile)).toBe(false);
-    const { users } = await import('../../server/db/tables/index');
-    await expect(open2.db.select().from(users)).resolves.toEqual([]);
-    await open2.close();
-  });
 });
 
 describe('lockDataDir', () => {

@@ -77,6 +77,31 @@ describe('balanceEquationText — textbook worked examples', () => {
 });
 
 describe('balanceEquationText — outcomes', () => {
+  it('balances deuterium and tritium as symbols of their own', () => {
+    expect(coefficients(balance('D2 + O2 -> D2O'))).toEqual(['2', '1', '2']);
+    expect(coefficients(balance('H2 + D2 -> HD'))).toEqual(['1', '1', '2']);
+    expect(balance('H2 + T2O -> H2O').status).toBe('impossible'); // T cannot turn into H
+  });
+
+  it('shows how each species was read (formula, Hill formula, charge)', () => {
+    const r = balance('Fe3+ + NH4+ -> Fe3+ + NH4+');
+    expect(r.terms.map((t) => [t.formula, t.hill, t.charge])).toEqual([
+      ['Fe3^+', 'Fe3', 1],
+      ['NH4^+', 'H4N', 1],
+      ['Fe3^+', 'Fe3', 1],
+      ['NH4^+', 'H4N', 1],
+    ]);
+    expect(r.warnings.filter((w) => w.code === 'ambiguous_charge').map((w) => [w.term, w.column])).toEqual([
+      [0, 1],
+      [2, 16],
+    ]);
+  });
+
+  it('applies normaliseTo after fixed coefficients have chosen a balancing', () => {
+    const r = balance('C + O2 -> CO + CO2', { fixed: { '2': '2', '3': '1' }, normaliseTo: 0 });
+    expect(coefficients(r)).toEqual(['1', '2/3', '2/3', '1/3']);
+  });
+
   it('keeps coefficients that balance as given', () => {
     const r = balance('H2(g) + 1/2 O2(g) -> H2O(l), ΔH = -285.83 kJ/mol');
     expect([r.status, r.asGiven, coefficients(r)]).toEqual(['balanced', true, ['1', '1/2', '1']]);

@@ -73,7 +73,6 @@ describe('findPositiveCombination', () => {
             for (const x of c) expect(x >= 1n).toBe(true);
             for (const row of m) {
               let num = 0n;
-              let den = 1n;
               for (let j = 0; j < k; j++) {
                 num += row[j]! * c[j]!;
 

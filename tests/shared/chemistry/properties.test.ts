@@ -11,6 +11,7 @@ import {
 } from '@shared/chemistry';
 import type { FormulaItem, FormulaPart, ParsedSpecies } from '@shared/chemistry';
 import { hillFormula, compositionOf } from '@shared/chemistry/hill';
+import { chargeText, partsText } from '@shared/chemistry/species';
 
 // Property-based tests (fast-check). Structures are generated, formatted by us, and read back.
 const SYMBOLS = ['H', 'C', 'N', 'O', 'S', 'Cl', 'Na', 'K', 'Fe', 'Cu', 'Co', 'Mn', 'Cr', 'P', 'Ca', 'Mg', 'D', 'Og', 'Ts'];
@@ -41,7 +42,7 @@ const speciesArb: fc.Arbitrary<ParsedSpecies> = fc
   .map(([ps, charge, phase]) => {
     const composition = compositionOf(ps);
     return {
-      formula: '',
+      formula: partsText(ps) + chargeText(charge),
       composition,
       charge,
       hill: hillFormula(composition),
@@ -100,7 +101,7 @@ describe('balanceEquationText', () => {
   // Decomposition into elements is always possible: A_x B_y… -> A + B2 + …
   it('always balances a decomposition into the elements', () => {
     fc.assert(
-      fc.property(fc.array(speciesArb.map((s) => ({ ...s, charge: 0 })), { minLength: 1, maxLength: 3 }), (list) => {
+      fc.property(fc.array(speciesArb.map((s) => ({ ...s, charge: 0, formula: partsText(s.parts) })), { minLength: 1, maxLength: 3 }), (list) => {
         const symbols = [...new Set(list.flatMap((s) => Object.keys(s.composition)))];
         const equation = `${list.map((s) => formatFormula({ ...s, phase: null }, 'text')).join(' + ')} -> ${symbols.map((s) => `${s}2`).join(' + ')}`;
         const r = balanceEquationText({ equation });
