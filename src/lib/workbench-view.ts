@@ -53,6 +53,16 @@ export function balanceRows(terms: readonly SpeciesTerm[]): Array<BalanceRow & {
   return elementBalanceTable(countedTerms(terms)).map((row) => ({ ...row, mismatch: row.reactants !== row.products }));
 }
 
+function gcd(a: number, b: number): number {
+  return b === 0 ? a : gcd(b, a % b);
+}
+
+/** True when the coefficients are whole numbers with no common factor (what "balanced" usually means). */
+export function smallestWholeNumbers(coefficients: readonly string[]): boolean {
+  if (coefficients.some((c) => !/^\d+$/.test(c))) return false;
+  return coefficients.map(Number).reduce(gcd, 0) === 1;
+}
+
 export type StatusTone = 'success' | 'warning' | 'error';
 
 /** A status chip's tone, label and a sentence of detail. */
@@ -61,7 +71,13 @@ export function statusSummary(result: BalanceResult): { tone: StatusTone; label:
     case 'balanced':
       return result.asGiven
         ? { tone: 'success', label: 'Balanced as written', detail: 'Your coefficients conserve every element and the charge.' }
-        : { tone: 'success', label: 'Balanced', detail: 'Smallest whole-number coefficients that conserve every element and the charge.' };
+        : {
+            tone: 'success',
+            label: 'Balanced',
+            detail: smallestWholeNumbers(result.terms.map((t) => t.coefficient))
+              ? 'Smallest whole-number coefficients that conserve every element and the charge.'
+              : 'Exact coefficients that conserve every element and the charge.',
+          };
     case 'multiple': {
       const d = result.dimension ?? result.basis?.length ?? 0;
       return {

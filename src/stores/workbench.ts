@@ -30,11 +30,15 @@ export const useWorkbenchStore = defineStore('workbench', () => {
     options.value = { ...options.value, normaliseTo: index };
   }
 
+  function resetFixed(): void {
+    options.value = { ...options.value, fixed: {} };
+  }
+
   function resetTransforms(): void {
     reversed.value = false;
     factor.value = '1';
     options.value = { fixed: {}, normaliseTo: null };
   }
 
-  return { text, options, reversed, factor, batchText, setText, fix, normaliseTo, resetTransforms };
+  return { text, options, reversed, factor, batchText, setText, fix, normaliseTo, resetFixed, resetTransforms };
 });

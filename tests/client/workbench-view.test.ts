@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { balanceEquationText, formatEquation, parseEquation } from '@shared/chemistry/index';
-import { balanceRows, displayedEquation, formatWithUncertainty, molarMassRows, readFactor, statusSummary } from '@/lib/workbench-view';
+import { balanceRows, displayedEquation, formatWithUncertainty, molarMassRows, readFactor, smallestWholeNumbers, statusSummary } from '@/lib/workbench-view';
 
 describe('readFactor', () => {
   it('accepts exact positive numbers and writes them canonically', () => {
@@ -48,6 +48,14 @@ describe('statusSummary', () => {
     const impossible = statusSummary(balanceEquationText({ equation: 'H2 -> O2' }));
     expect(impossible.tone).toBe('error');
     expect(impossible.detail.length).toBeGreaterThan(0);
+  });
+});
+
+describe('smallestWholeNumbers', () => {
+  it('is true only for whole numbers without a common factor', () => {
+    expect(smallestWholeNumbers(['1', '5', '3', '4'])).toBe(true);
+    expect(smallestWholeNumbers(['2', '10', '6', '8'])).toBe(false);
+    expect(smallestWholeNumbers(['1/2', '1', '1/2', '1'])).toBe(false);
   });
 });
 

@@ -37,6 +37,24 @@ describe('reaction workbench (signed out)', () => {
     // Reversing flips the sign and halving halves ΔH: +571.6/2 = +285.8 kJ/mol (Hess's law).
     await expect.poll(() => page.getByTestId('balanced-enthalpy').textContent()).toMatch(/285\.8/);
     await screenshot(page, 'workbench-reversed');
+    // Reverse and scale stay set for the next equation (they are visible controls): undo them.
+    await page.getByTestId('reverse-switch').click();
+    await page.locator('[data-testid="scale-factor"] input').fill('1');
+    await expect.poll(() => equation.textContent()).toBe('2 H2(g) + O2(g) → 2 H2O(l)');
+  });
+
+  it('offers a basis for several balancings and balances once coefficients are fixed', async () => {
+    const { page } = browser;
+    await page.locator('[data-testid="equation-input"] input').fill('H2 + O2 -> H2O + H2O2');
+    const status = page.getByTestId('balance-status');
+    await expect.poll(() => status.getAttribute('data-status')).toBe('multiple');
+    // Two independent reactions: 2 H2 + O2 -> 2 H2O and H2 + O2 -> H2O2 (common practice, no source).
+    expect(await page.getByTestId('several-balancings').locator('li').count()).toBe(2);
+    await page.locator('[data-testid="fix-2"] input').fill('2');
+    await page.locator('[data-testid="fix-3"] input').fill('1');
+    await expect.poll(() => status.getAttribute('data-status')).toBe('balanced');
+    await expect.poll(() => page.getByTestId('balanced-equation').textContent()).toBe('3 H2 + 2 O2 → 2 H2O + H2O2');
+    expect(await page.getByTestId('fixed-coefficients').textContent()).toContain('H2O = 2');
   });
 
   it('marks an unknown element at its column', async () => {
