@@ -94,6 +94,28 @@ function balancesExactly(rows: number[][], given: Rat[]): boolean {
   return rows.every((row) => row.reduce((sum, a, j) => sum + BigInt(a) * ints[j]!, 0n) === 0n);
 }
 
+/**
+ * The per-element table of the coefficients as typed, read off the composition matrix (same rows
+ * as `elementBalanceTable`, which it falls back to for fractional coefficients).
+ */
+function givenTable(keys: string[], rows: number[][], terms: SpeciesTerm[], given: Rat[]): BalanceResult['givenImbalance'] {
+  if (!given.every((g) => g.d === 1n && g.n < 1_000_000n)) {
+    return elementBalanceTable(terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient })));
+  }
+  const g = given.map((x) => Number(x.n));
+  return keys.map((element, r) => {
+    let reactants = 0;
+    let products = 0;
+    const row = rows[r]!;
+    for (let j = 0; j < row.length; j++) {
+      // Products were entered with the opposite sign.
+      if (terms[j]!.side === 'reactant') reactants += row[j]! * g[j]!;
+      else products -= row[j]! * g[j]!;
+    }
+    return { element, reactants: String(reactants), products: String(products) };
+  });
+}
+
 /** Reasons that need no algebra: an element or the charge that sits on one side only. */
 function oneSideReasons(keys: string[], rows: number[][], terms: SpeciesTerm[]): string[] {
   const reasons: string[] = [];
@@ -287,9 +309,7 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
       }),
     };
     if (!asGiven) {
-      out.givenImbalance = elementBalanceTable(
-        terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient })),
-      );
+      out.givenImbalance = givenTable(keys, rows, terms, given);
     }
     if (partial.basis) out.basis = partial.basis;
     if (partial.reason) out.reason = partial.reason;

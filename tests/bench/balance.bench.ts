@@ -29,17 +29,20 @@ const HARD = {
   '30 species': THIRTY,
 };
 
+// Long warm-up: with tinybench's defaults the figures are dominated by JIT warm-up and the first GCs.
+const OPTIONS = { time: 3000, warmupTime: 1500, warmupIterations: 2000 };
+
 describe('parse and balance, typical equations (≤ 8 species)', () => {
   // One iteration = all 10 typical equations: equations per second = hz × 10.
   bench('10 typical equations per iteration (equations/s = hz × 10)', () => {
     for (const equation of TYPICAL) balanceEquationText({ equation });
-  });
+  }, OPTIONS);
 });
 
 describe('parse and balance, hard cases', () => {
   for (const [name, equation] of Object.entries(HARD)) {
     bench(name, () => {
       balanceEquationText({ equation });
-    });
+    }, OPTIONS);
   }
 });

@@ -86,6 +86,9 @@ describe('balanceEquationText', () => {
           const rows = elementBalanceTable(parsed.terms.map((t, j) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: coefficients[j]! })));
           for (const row of rows) expect(row.reactants).toBe(row.products);
         };
+        const asTyped = elementBalanceTable(parsed.terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient })));
+        if (r.asGiven) expect(r.givenImbalance).toBeUndefined();
+        else expect(r.givenImbalance).toEqual(asTyped);
         if (r.status !== 'impossible') {
           check(r.terms.map((t) => t.coefficient));
           expect(r.terms.every((t) => !t.coefficient.startsWith('-') && t.coefficient !== '0')).toBe(true);
