@@ -7,7 +7,6 @@ import {
   tokenIdParamsSchema,
   updateAccountInputSchema,
 } from '@shared/schemas/account';
-import { AppError } from '../errors';
 import {
   changePassword,
   createApiToken,
@@ -16,14 +15,7 @@ import {
   updateDisplayName,
 } from '../services/account.service';
 import { sessionInfoFor } from '../services/users.service';
-import { defineRoute, type RouteContext } from './registry';
-import type { Principal } from '../context';
-
-/** The principal of a signed-in route (the access check guarantees one). */
-export function signedIn(ctx: Pick<RouteContext<unknown, unknown, unknown>, 'principal'>): Principal {
-  if (!ctx.principal) throw new AppError('unauthenticated', 'Sign in first, or send an API token.');
-  return ctx.principal;
-}
+import { defineRoute, signedIn } from './registry';
 
 /** The caller's own account and API tokens. */
 export const accountRoutes = [

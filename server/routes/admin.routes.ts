@@ -12,8 +12,7 @@ import {
 } from '@shared/schemas/admin';
 import { createTeam, listTeams, listUsers, readOutbox, updateUser } from '../services/admin.service';
 import { listAuditEvents } from '../services/audit.service';
-import { signedIn } from './account.routes';
-import { defineRoute } from './registry';
+import { defineRoute, signedIn } from './registry';
 
 const siteAdmin = { site: 'site_admin' } as const;
 

@@ -1,8 +1,7 @@
 import { teamIdParamsSchema } from '@shared/schemas/common';
 import { noteInputSchema, noteListSchema, noteParamsSchema, noteSchema } from '@shared/schemas/notes';
 import { createNote, deleteNote, listNotes, updateNote } from '../services/notes.service';
-import { signedIn } from './account.routes';
-import { defineRoute } from './registry';
+import { defineRoute, signedIn } from './registry';
 
 /** Team notes: viewers read, members write. */
 export const noteRoutes = [

@@ -2,6 +2,7 @@ import type { Request, Response } from 'express';
 import type { z } from 'zod';
 import type { SiteRole, TeamRole } from '@shared/schemas/roles';
 import type { AppDeps, Principal, RequestMeta } from '../context';
+import { AppError } from '../errors';
 
 /**
  * Who may call a route: anyone; anyone signed in; members of the :teamId team with at least the
@@ -88,4 +89,10 @@ export function describeAccess(access: Access): string {
   if (access === 'signed_in') return 'any signed-in user';
   if ('team' in access) return `team members with role ${access.team} or above`;
   return `users with the site role ${access.site}`;
+}
+
+/** The principal of a signed-in route (the access check guarantees one). */
+export function signedIn(ctx: Pick<RouteContext<unknown, unknown, unknown>, 'principal'>): Principal {
+  if (!ctx.principal) throw new AppError('unauthenticated', 'Sign in first, or send an API token.');
+  return ctx.principal;
 }

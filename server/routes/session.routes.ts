@@ -2,7 +2,7 @@ import { sessionInfoSchema, signInInputSchema } from '@shared/schemas/session';
 import { clearSessionCookie, setSessionCookie } from '../middleware/auth';
 import { signIn, signOut } from '../services/session.service';
 import { sessionInfoFor } from '../services/users.service';
-import { defineRoute } from './registry';
+import { defineRoute, signedIn } from './registry';
 
 /** Signing in and out with e-mail and password. */
 export const sessionRoutes = [

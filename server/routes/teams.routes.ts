@@ -12,8 +12,7 @@ import {
 } from '@shared/schemas/teams';
 import { createInvitation, listInvitations, revokeInvitation } from '../services/invitations.service';
 import { getTeam, listMembers, removeMember, updateMemberRole } from '../services/teams.service';
-import { signedIn } from './account.routes';
-import { defineRoute } from './registry';
+import { defineRoute, signedIn } from './registry';
 
 /** A team, its members and its invitations. */
 export const teamRoutes = [
