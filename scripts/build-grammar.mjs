@@ -28,19 +28,30 @@ function hoistConstants(code) {
   if (start === -1) throw new Error('build-grammar: peg$parse not found; check the peggy version');
   const body = code.slice(start);
   const hoisted = [];
-  let rest = body.replace(/^  const peg\$[cre]\d+ = .*;$\n/gm, (line) => {
+  let rest = body.replace(/^ {2}const peg\$[cre]\d+ = .*;$\n/gm, (line) => {
     hoisted.push(line.slice(2));
     return '';
   });
-  for (const name of ['literalExpectation', 'classExpectation', 'anyExpectation', 'endExpectation', 'otherExpectation']) {
+  for (const name of [
+    'literalExpectation',
+    'classExpectation',
+    'anyExpectation',
+    'endExpectation',
+    'otherExpectation',
+  ]) {
     const re = new RegExp(`^  function peg\\$${name}\\([^)]*\\) \\{\\n[\\s\\S]*?^  \\}\\n`, 'm');
     const m = re.exec(rest);
     if (!m) throw new Error(`build-grammar: peg$${name} not found; check the peggy version`);
-    hoisted.unshift(m[0].replace(/^  /gm, ''));
+    hoisted.unshift(m[0].replace(/^ {2}/gm, ''));
     rest = rest.replace(m[0], '');
   }
   if (hoisted.length < 10) throw new Error('build-grammar: expected constants to hoist; check the peggy version');
-  return code.slice(0, start) + '\n// Hoisted by build-grammar.mjs (immutable, shared by all calls).\n' + hoisted.join('') + rest;
+  return (
+    code.slice(0, start) +
+    '\n// Hoisted by build-grammar.mjs (immutable, shared by all calls).\n' +
+    hoisted.join('') +
+    rest
+  );
 }
 await mkdir(outDir, { recursive: true });
 
@@ -63,11 +74,14 @@ for (const file of files) {
       ...(startRules.length ? { allowedStartRules: startRules } : {}),
     });
   } catch (err) {
-    if (typeof err.format === 'function') console.error(err.format([{ source: path.join('grammar', file), text: source }]));
+    if (typeof err.format === 'function')
+      console.error(err.format([{ source: path.join('grammar', file), text: source }]));
     throw err;
   }
 
-  const rules = startRules.length ? startRules : [/^\s*([A-Za-z_]\w*)\s*(?:"[^"]*")?\s*=/m.exec(source.replace(/\{\{[\s\S]*?\}\}/, ''))?.[1] ?? 'start'];
+  const rules = startRules.length
+    ? startRules
+    : [/^\s*([A-Za-z_]\w*)\s*(?:"[^"]*")?\s*=/m.exec(source.replace(/\{\{[\s\S]*?\}\}/, ''))?.[1] ?? 'start'];
   const quoted = rules.map((r) => `"${r}"`);
   let dts = template.replace('$$$StartRules$$$', quoted.join(' | ')).replace('$$$DefaultStartRule$$$', quoted[0]);
   for (const rule of rules) {

@@ -98,7 +98,12 @@ try {
   delete env.SMTP_HOST;
   delete env.DATABASE_URL;
 
-  server = spawn(bin('tsx'), ['server/index.ts'], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
+  server = spawn(bin('tsx'), ['server/index.ts'], {
+    cwd: root,
+    env,
+    stdio: ['ignore', 'pipe', 'pipe'],
+    detached: true,
+  });
   const log = [];
   const keep = (chunk) => {
     log.push(chunk.toString());

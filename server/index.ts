@@ -22,7 +22,14 @@ async function main(): Promise<void> {
   const mailer = fakeSmtp
     ? createMailer({ host: fakeSmtp.host, port: fakeSmtp.port, secure: false, from: env.MAIL_FROM }, fakeSmtp)
     : createMailer(
-        { host: env.SMTP_HOST!, port: env.SMTP_PORT, secure: env.SMTP_SECURE, user: env.SMTP_USER, pass: env.SMTP_PASS, from: env.MAIL_FROM },
+        {
+          host: env.SMTP_HOST!,
+          port: env.SMTP_PORT,
+          secure: env.SMTP_SECURE,
+          user: env.SMTP_USER,
+          pass: env.SMTP_PASS,
+          from: env.MAIL_FROM,
+        },
         null,
       );
 

@@ -28,9 +28,7 @@ export interface OpenDatabase {
   close(): Promise<void>;
 }
 
-export type DatabaseTarget =
-  | { kind: 'pglite'; dataDir: string | 'memory://' }
-  | { kind: 'postgres'; url: string };
+export type DatabaseTarget = { kind: 'pglite'; dataDir: string | 'memory://' } | { kind: 'postgres'; url: string };
 
 /**
  * Opens PGlite (persisted in `dataDir`, or in memory) or a PostgreSQL server pool, both behind

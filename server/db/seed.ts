@@ -62,14 +62,18 @@ export async function seedDemo(db: Db, seed: DemoSeed = loadDemoSeed()): Promise
     for (const team of seed.teams) {
       await tx.insert(teams).values({ slug: team.slug, name: team.name }).onConflictDoNothing({ target: teams.slug });
     }
-    const teamIds = new Map((await tx.select({ id: teams.id, slug: teams.slug }).from(teams)).map((t) => [t.slug, t.id]));
+    const teamIds = new Map(
+      (await tx.select({ id: teams.id, slug: teams.slug }).from(teams)).map((t) => [t.slug, t.id]),
+    );
     for (const user of seed.users) {
       await tx
         .insert(users)
         .values({ email: user.email, displayName: user.displayName, passwordHash, siteRoles: user.siteRoles })
         .onConflictDoNothing({ target: users.email });
     }
-    const userIds = new Map((await tx.select({ id: users.id, email: users.email }).from(users)).map((u) => [u.email, u.id]));
+    const userIds = new Map(
+      (await tx.select({ id: users.id, email: users.email }).from(users)).map((u) => [u.email, u.id]),
+    );
     for (const user of seed.users) {
       for (const m of user.teams) {
         const teamId = teamIds.get(m.slug);

@@ -26,7 +26,10 @@ export function csrfGuard(publicUrl: string): RequestHandler {
       const host = hostOf(origin);
       const requestHost = req.get('host')?.toLowerCase();
       if (host !== null && (host === requestHost || host === publicHost)) return next();
-      throw new AppError('csrf_rejected', `Requests from ${origin} may not change data here. Use Thermoledger from its own address.`);
+      throw new AppError(
+        'csrf_rejected',
+        `Requests from ${origin} may not change data here. Use Thermoledger from its own address.`,
+      );
     }
     if (req.get('sec-fetch-site') === 'same-origin') return next();
     throw new AppError(

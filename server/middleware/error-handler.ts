@@ -18,7 +18,10 @@ function fromBodyParser(err: BodyParserError): AppError | null {
     case 'entity.parse.failed':
       return new AppError('bad_request', 'The request body is not valid JSON. Check quotes, commas and brackets.');
     case 'entity.too.large':
-      return new AppError('payload_too_large', `The request body is too large (the limit is ${Math.round((err.limit ?? 0) / 1024)} kB).`);
+      return new AppError(
+        'payload_too_large',
+        `The request body is too large (the limit is ${Math.round((err.limit ?? 0) / 1024)} kB).`,
+      );
     case 'encoding.unsupported':
     case 'charset.unsupported':
       return new AppError('unsupported_media_type', 'Send the body as UTF-8 JSON.');
@@ -55,8 +58,10 @@ export function errorHandler(): ErrorRequestHandler {
     }
     const requestId = res.locals.requestId ?? 'unknown';
     console.error(`[error] request ${requestId} ${req.method} ${req.originalUrl}:`, err);
-    res
-      .status(errorStatusByCode.internal)
-      .json(envelope('internal', `Something went wrong on our side. Quote request id ${requestId} when reporting it.`, { requestId }));
+    res.status(errorStatusByCode.internal).json(
+      envelope('internal', `Something went wrong on our side. Quote request id ${requestId} when reporting it.`, {
+        requestId,
+      }),
+    );
   };
 }

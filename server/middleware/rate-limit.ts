@@ -38,10 +38,7 @@ export class RateLimits {
 
   /** Throws 429 when the account or the address has used up its failed sign-ins. */
   async checkSignIn(email: string, ip: string): Promise<void> {
-    const [byAccount, byAddress] = await Promise.all([
-      this.accountFailures.get(email),
-      this.addressFailures.get(ip),
-    ]);
+    const [byAccount, byAddress] = await Promise.all([this.accountFailures.get(email), this.addressFailures.get(ip)]);
     const blocked = [
       { res: byAccount, limit: this.config.signIn.maxFailuresPerAccount, what: 'this account' },
       { res: byAddress, limit: this.config.signIn.maxFailuresPerAddress, what: 'your network address' },

@@ -101,7 +101,9 @@ function runHandler(route: AnyRoute, deps: AppDeps): RequestHandler {
     // Replies go through their schema: drift from the contract fails loudly, and no stray column leaks.
     const checked = replySchema.safeParse(result);
     if (!checked.success) {
-      throw new Error(`Reply of ${route.method.toUpperCase()} ${route.path} breaks its schema: ${checked.error.message}`);
+      throw new Error(
+        `Reply of ${route.method.toUpperCase()} ${route.path} breaks its schema: ${checked.error.message}`,
+      );
     }
     res.status(status).json(checked.data);
   };

@@ -40,6 +40,10 @@ function openApiRoute(routes: () => readonly AnyRoute[]): AnyRoute {
 /** Every API route, in registry form. Tests may pass extra routes to createApp. */
 export function apiRoutes(extra: readonly AnyRoute[] = []): AnyRoute[] {
   const list: AnyRoute[] = [];
-  list.push(...resourceRoutes, ...extra, openApiRoute(() => list));
+  list.push(
+    ...resourceRoutes,
+    ...extra,
+    openApiRoute(() => list),
+  );
   return list;
 }

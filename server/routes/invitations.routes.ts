@@ -1,5 +1,9 @@
 import { sessionInfoSchema } from '@shared/schemas/session';
-import { acceptInvitationInputSchema, invitationPreviewSchema, invitationTokenParamsSchema } from '@shared/schemas/teams';
+import {
+  acceptInvitationInputSchema,
+  invitationPreviewSchema,
+  invitationTokenParamsSchema,
+} from '@shared/schemas/teams';
 import { setSessionCookie } from '../middleware/auth';
 import { acceptInvitation, previewInvitation } from '../services/invitations.service';
 import { sessionInfoFor } from '../services/users.service';

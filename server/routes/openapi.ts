@@ -27,7 +27,11 @@ function errorResponsesFor(route: AnyRoute): number[] {
 export function buildOpenApiDocument(routes: readonly AnyRoute[], version: string): object {
   const registry = new OpenAPIRegistry();
   registry.registerComponent('securitySchemes', 'sessionCookie', { type: 'apiKey', in: 'cookie', name: 'tl_session' });
-  registry.registerComponent('securitySchemes', 'apiToken', { type: 'http', scheme: 'bearer', description: 'Personal API token "tl_…"' });
+  registry.registerComponent('securitySchemes', 'apiToken', {
+    type: 'http',
+    scheme: 'bearer',
+    description: 'Personal API token "tl_…"',
+  });
   const errorSchema = errorEnvelopeSchema;
 
   for (const route of routes) {

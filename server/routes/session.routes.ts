@@ -2,7 +2,7 @@ import { sessionInfoSchema, signInInputSchema } from '@shared/schemas/session';
 import { clearSessionCookie, setSessionCookie } from '../middleware/auth';
 import { signIn, signOut } from '../services/session.service';
 import { sessionInfoFor } from '../services/users.service';
-import { defineRoute, signedIn } from './registry';
+import { defineRoute } from './registry';
 
 /** Signing in and out with e-mail and password. */
 export const sessionRoutes = [
@@ -10,7 +10,8 @@ export const sessionRoutes = [
     method: 'post',
     path: '/session',
     summary: 'Sign in',
-    description: 'Checks e-mail and password and sets the tl_session cookie. Failed attempts are limited per account and per address.',
+    description:
+      'Checks e-mail and password and sets the tl_session cookie. Failed attempts are limited per account and per address.',
     tags: ['session'],
     access: 'public',
     request: { body: signInInputSchema },

@@ -45,7 +45,8 @@ export const teamRoutes = [
     access: { team: 'team_admin' },
     request: { params: memberParamsSchema, body: updateMemberInputSchema },
     responses: { 200: teamMemberSchema },
-    handler: (ctx) => updateMemberRole(ctx.deps.db, signedIn(ctx), ctx.params.teamId, ctx.params.userId, ctx.body.role, ctx.meta),
+    handler: (ctx) =>
+      updateMemberRole(ctx.deps.db, signedIn(ctx), ctx.params.teamId, ctx.params.userId, ctx.body.role, ctx.meta),
   }),
   defineRoute({
     method: 'delete',

@@ -21,7 +21,12 @@ export async function updateDisplayName(db: Db, principal: Principal, displayNam
 }
 
 /** Changes the password after checking the current one; ends the user's other sessions. */
-export async function changePassword(db: Db, principal: Principal, input: ChangePasswordInput, meta: RequestMeta): Promise<void> {
+export async function changePassword(
+  db: Db,
+  principal: Principal,
+  input: ChangePasswordInput,
+  meta: RequestMeta,
+): Promise<void> {
   const user = await findUserById(db, principal.user.id);
   if (!user) throw errors.notFound('Your account');
   if (!(await verifyPassword(user.passwordHash, input.currentPassword))) {
@@ -53,15 +58,31 @@ export async function listApiTokens(db: Db, userId: string): Promise<ApiToken[]>
 }
 
 /** Creates a token; the secret is returned this once and stored only as a hash. */
-export async function createApiToken(db: Db, principal: Principal, input: CreateApiTokenInput, meta: RequestMeta): Promise<CreatedApiToken> {
+export async function createApiToken(
+  db: Db,
+  principal: Principal,
+  input: CreateApiTokenInput,
+  meta: RequestMeta,
+): Promise<CreatedApiToken> {
   const secret = newApiTokenSecret();
   const expiresAt = input.expiresInDays ? new Date(Date.now() + input.expiresInDays * 86_400_000) : null;
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(apiTokens)
-      .values({ userId: principal.user.id, name: input.name, prefix: secret.slice(0, 10), tokenHash: hashSecret(secret), expiresAt })
+      .values({
+        userId: principal.user.id,
+        name: input.name,
+        prefix: secret.slice(0, 10),
+        tokenHash: hashSecret(secret),
+        expiresAt,
+      })
       .returning();
-    await recordAudit(tx, { action: 'token.created', actor: principal.user, meta, detail: { tokenId: row!.id, name: input.name } });
+    await recordAudit(tx, {
+      action: 'token.created',
+      actor: principal.user,
+      meta,
+      detail: { tokenId: row!.id, name: input.name },
+    });
     return { ...toApiToken(row!), token: secret };
   });
 }
@@ -74,6 +95,11 @@ export async function revokeApiToken(db: Db, principal: Principal, tokenId: stri
       .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, principal.user.id)))
       .returning({ id: apiTokens.id, name: apiTokens.name });
     if (!row) throw new AppError('not_found', 'That API token was not found among yours.');
-    await recordAudit(tx, { action: 'token.revoked', actor: principal.user, meta, detail: { tokenId: row.id, name: row.name } });
+    await recordAudit(tx, {
+      action: 'token.revoked',
+      actor: principal.user,
+      meta,
+      detail: { tokenId: row.id, name: row.name },
+    });
   });
 }

@@ -32,7 +32,13 @@ export async function listUsers(db: Db): Promise<AdminUser[]> {
  * Changes a user's site roles and/or disables them. A site admin cannot take away their own
  * site_admin role or disable themselves (409), so the installation keeps an administrator.
  */
-export async function updateUser(db: Db, actor: Principal, userId: string, input: UpdateUserInput, meta: RequestMeta): Promise<AdminUser> {
+export async function updateUser(
+  db: Db,
+  actor: Principal,
+  userId: string,
+  input: UpdateUserInput,
+  meta: RequestMeta,
+): Promise<AdminUser> {
   const self = actor.user.id === userId;
   if (self && input.siteRoles && !input.siteRoles.includes('site_admin')) {
     throw new AppError('conflict', 'You cannot remove your own site admin role. Ask another site admin.');
@@ -55,7 +61,12 @@ export async function updateUser(db: Db, actor: Principal, userId: string, input
     }
     if (disabled !== before.disabled) {
       if (disabled) await endUserSessions(tx, userId);
-      await recordAudit(tx, { action: disabled ? 'user.disabled' : 'user.enabled', actor: actor.user, meta, detail: target });
+      await recordAudit(tx, {
+        action: disabled ? 'user.disabled' : 'user.enabled',
+        actor: actor.user,
+        meta,
+        detail: target,
+      });
     }
   });
   const updated = (await listUsers(db)).find((u) => u.id === userId);
@@ -66,7 +77,13 @@ export async function updateUser(db: Db, actor: Principal, userId: string, input
 /** Every team with its member count, by name. */
 export async function listTeams(db: Db): Promise<AdminTeam[]> {
   const rows = await db
-    .select({ id: teams.id, name: teams.name, slug: teams.slug, createdAt: teams.createdAt, memberCount: count(memberships.userId) })
+    .select({
+      id: teams.id,
+      name: teams.name,
+      slug: teams.slug,
+      createdAt: teams.createdAt,
+      memberCount: count(memberships.userId),
+    })
     .from(teams)
     .leftJoin(memberships, eq(memberships.teamId, teams.id))
     .groupBy(teams.id)
@@ -75,7 +92,12 @@ export async function listTeams(db: Db): Promise<AdminTeam[]> {
 }
 
 /** Creates a team and e-mails its first team admin an invitation. */
-export async function createTeam(deps: AppDeps, actor: Principal, input: CreateTeamInput, meta: RequestMeta): Promise<AdminTeam> {
+export async function createTeam(
+  deps: AppDeps,
+  actor: Principal,
+  input: CreateTeamInput,
+  meta: RequestMeta,
+): Promise<AdminTeam> {
   const made = await deps.db.transaction(async (tx) => {
     const slug = await uniqueSlug(tx, input.name);
     const [team] = await tx.insert(teams).values({ name: input.name, slug }).returning();
@@ -95,13 +117,24 @@ export async function createTeam(deps: AppDeps, actor: Principal, input: CreateT
     return { team: team!, ...invitation };
   });
   try {
-    await mailInvitation(deps, { row: made.row, secret: made.secret, teamName: made.team.name, inviterName: actor.user.displayName });
+    await mailInvitation(deps, {
+      row: made.row,
+      secret: made.secret,
+      teamName: made.team.name,
+      inviterName: actor.user.displayName,
+    });
   } catch (err) {
     // Without its admin's invitation the new team is unreachable: take it back.
     await deps.db.delete(teams).where(eq(teams.id, made.team.id));
     throw err;
   }
-  return { id: made.team.id, name: made.team.name, slug: made.team.slug, memberCount: 0, createdAt: made.team.createdAt.toISOString() };
+  return {
+    id: made.team.id,
+    name: made.team.name,
+    slug: made.team.slug,
+    memberCount: 0,
+    createdAt: made.team.createdAt.toISOString(),
+  };
 }
 
 /** The development outbox, newest first. */

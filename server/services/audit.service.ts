@@ -45,7 +45,10 @@ export async function recordAudit(exec: Executor, entry: AuditEntry): Promise<vo
 }
 
 /** Newest events first, `limit` of them, older than `before` when given. */
-export async function listAuditEvents(exec: Executor, query: { limit: number; before?: string | undefined }): Promise<AuditEvent[]> {
+export async function listAuditEvents(
+  exec: Executor,
+  query: { limit: number; before?: string | undefined },
+): Promise<AuditEvent[]> {
   const rows = await exec
     .select()
     .from(auditLog)

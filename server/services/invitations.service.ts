@@ -1,5 +1,10 @@
 import { and, desc, eq, isNull } from 'drizzle-orm';
-import type { AcceptInvitationInput, CreateInvitationInput, Invitation, InvitationPreview } from '@shared/schemas/teams';
+import type {
+  AcceptInvitationInput,
+  CreateInvitationInput,
+  Invitation,
+  InvitationPreview,
+} from '@shared/schemas/teams';
 import type { TeamRole } from '@shared/schemas/roles';
 import { roleLabels } from '@shared/schemas/roles';
 import type { AppDeps, Principal, RequestMeta } from '../context';
@@ -29,7 +34,11 @@ function toInvitation(row: InvitationRow): Invitation {
 
 /** A team's invitations, newest first (accepted ones included, for the record). */
 export async function listInvitations(deps: AppDeps, teamId: string): Promise<Invitation[]> {
-  const rows = await deps.db.select().from(invitations).where(eq(invitations.teamId, teamId)).orderBy(desc(invitations.createdAt));
+  const rows = await deps.db
+    .select()
+    .from(invitations)
+    .where(eq(invitations.teamId, teamId))
+    .orderBy(desc(invitations.createdAt));
   return rows.map(toInvitation);
 }
 
@@ -80,7 +89,10 @@ export async function mailInvitation(
   } catch (err) {
     await deps.db.delete(invitations).where(eq(invitations.id, args.row.id));
     console.error('[mail] invitation e-mail failed:', (err as Error).message);
-    throw new AppError('unavailable', 'The invitation e-mail could not be sent, so no invitation was made. Try again later.');
+    throw new AppError(
+      'unavailable',
+      'The invitation e-mail could not be sent, so no invitation was made. Try again later.',
+    );
   }
 }
 
@@ -121,14 +133,25 @@ export async function createInvitation(
 }
 
 /** Withdraws an open or accepted invitation record of this team. */
-export async function revokeInvitation(deps: AppDeps, actor: Principal, teamId: string, invitationId: string, meta: RequestMeta): Promise<void> {
+export async function revokeInvitation(
+  deps: AppDeps,
+  actor: Principal,
+  teamId: string,
+  invitationId: string,
+  meta: RequestMeta,
+): Promise<void> {
   await deps.db.transaction(async (tx) => {
     const [row] = await tx
       .delete(invitations)
       .where(and(eq(invitations.id, invitationId), eq(invitations.teamId, teamId)))
       .returning({ id: invitations.id, email: invitations.email });
     if (!row) throw errors.notFound('The invitation');
-    await recordAudit(tx, { action: 'invitation.revoked', actor: actor.user, meta, detail: { teamId, invitationId, email: row.email } });
+    await recordAudit(tx, {
+      action: 'invitation.revoked',
+      actor: actor.user,
+      meta,
+      detail: { teamId, invitationId, email: row.email },
+    });
   });
 }
 
@@ -178,7 +201,10 @@ export async function acceptInvitation(
   if (account) {
     if (!principal) throw new AppError('unauthenticated', `Sign in as ${invitation.email} to accept this invitation.`);
     if (principal.user.id !== account.id) {
-      throw new AppError('forbidden', `This invitation is for ${invitation.email}; you are signed in as ${principal.user.email}.`);
+      throw new AppError(
+        'forbidden',
+        `This invitation is for ${invitation.email}; you are signed in as ${principal.user.email}.`,
+      );
     }
   } else {
     if (!input.displayName) throw errors.validation(['body', 'displayName'], 'Give your name to create the account.');
@@ -201,7 +227,8 @@ export async function acceptInvitation(
         .values({ email: invitation.email, displayName: input.displayName!, passwordHash: passwordHash! })
         .onConflictDoNothing({ target: users.email })
         .returning();
-      if (!created) throw errors.conflict(`An account for ${invitation.email} was just created. Sign in and open the link again.`);
+      if (!created)
+        throw errors.conflict(`An account for ${invitation.email} was just created. Sign in and open the link again.`);
       user = created;
     }
     if (user.disabled) throw errors.forbidden('This account is disabled.');

@@ -28,7 +28,13 @@ export async function listNotes(db: Db, teamId: string): Promise<Note[]> {
 export async function createNote(db: Db, author: Principal, teamId: string, input: NoteInput): Promise<Note> {
   const [row] = await db
     .insert(notes)
-    .values({ teamId, authorId: author.user.id, authorName: author.user.displayName, title: input.title, body: input.body })
+    .values({
+      teamId,
+      authorId: author.user.id,
+      authorName: author.user.displayName,
+      title: input.title,
+      body: input.body,
+    })
     .returning();
   return toNote(row!);
 }

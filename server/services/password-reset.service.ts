@@ -38,7 +38,11 @@ export async function requestPasswordReset(deps: AppDeps, email: string, meta: R
 }
 
 /** Sets the new password from a reset link, once; ends every session of the account. */
-export async function completePasswordReset(deps: AppDeps, input: CompletePasswordResetInput, meta: RequestMeta): Promise<void> {
+export async function completePasswordReset(
+  deps: AppDeps,
+  input: CompletePasswordResetInput,
+  meta: RequestMeta,
+): Promise<void> {
   const tokenHash = hashSecret(input.token);
   const [reset] = await deps.db.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).limit(1);
   if (!reset) throw new AppError('bad_request', 'This reset link is not valid. Ask for a new one.');

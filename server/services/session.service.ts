@@ -31,13 +31,23 @@ export async function createSession(
   const expiresAt = new Date(Date.now() + config.session.ttlMs);
   const [row] = await exec
     .insert(sessions)
-    .values({ tokenHash: hashSecret(secret), userId, expiresAt, ip: meta.ip, userAgent: meta.userAgent?.slice(0, 300) ?? null })
+    .values({
+      tokenHash: hashSecret(secret),
+      userId,
+      expiresAt,
+      ip: meta.ip,
+      userAgent: meta.userAgent?.slice(0, 300) ?? null,
+    })
     .returning({ id: sessions.id });
   return { secret, id: row!.id, expiresAt };
 }
 
 /** The principal for a session cookie, or null when it is unknown, expired, idle too long or its user disabled. */
-export async function resolveSession(db: Db, secret: string, config: Pick<AppConfig, 'session'>): Promise<Principal | null> {
+export async function resolveSession(
+  db: Db,
+  secret: string,
+  config: Pick<AppConfig, 'session'>,
+): Promise<Principal | null> {
   const [row] = await db
     .select({ session: sessions, user: users })
     .from(sessions)
@@ -52,7 +62,10 @@ export async function resolveSession(db: Db, secret: string, config: Pick<AppCon
     return null;
   }
   if (idleFor > TOUCH_INTERVAL_MS) {
-    await db.update(sessions).set({ lastSeenAt: new Date(now) }).where(eq(sessions.id, row.session.id));
+    await db
+      .update(sessions)
+      .set({ lastSeenAt: new Date(now) })
+      .where(eq(sessions.id, row.session.id));
   }
   return { user: toSessionUser(row.user), via: 'session', sessionId: row.session.id };
 }
@@ -70,7 +83,10 @@ export async function resolveApiToken(db: Db, secret: string): Promise<Principal
   const now = Date.now();
   if (row.token.expiresAt && row.token.expiresAt.getTime() <= now) return null;
   if (!row.token.lastUsedAt || now - row.token.lastUsedAt.getTime() > TOUCH_INTERVAL_MS) {
-    await db.update(apiTokens).set({ lastUsedAt: new Date(now) }).where(eq(apiTokens.id, row.token.id));
+    await db
+      .update(apiTokens)
+      .set({ lastUsedAt: new Date(now) })
+      .where(eq(apiTokens.id, row.token.id));
   }
   return { user: toSessionUser(row.user), via: 'token', tokenId: row.token.id };
 }
@@ -93,7 +109,9 @@ export async function signIn(
   await limits.checkSignIn(input.email, ip);
   const user = await findUserByEmail(db, input.email);
   // Hashing happens outside any transaction: PGlite has one connection.
-  const ok = user ? await verifyPassword(user.passwordHash, input.password) : (await burnPasswordCheck(input.password), false);
+  const ok = user
+    ? await verifyPassword(user.passwordHash, input.password)
+    : (await burnPasswordCheck(input.password), false);
   if (!user || !ok || user.disabled) {
     await limits.recordSignInFailure(input.email, ip);
     await recordAudit(db, {
@@ -116,7 +134,12 @@ export async function signIn(
 }
 
 /** Ends one session server-side. */
-export async function signOut(db: Db, principal: Principal | null, sessionId: string | undefined, meta: RequestMeta): Promise<void> {
+export async function signOut(
+  db: Db,
+  principal: Principal | null,
+  sessionId: string | undefined,
+  meta: RequestMeta,
+): Promise<void> {
   if (!sessionId) return;
   await db.transaction(async (tx) => {
     await tx.delete(sessions).where(eq(sessions.id, sessionId));
@@ -128,5 +151,7 @@ export async function signOut(db: Db, principal: Principal | null, sessionId: st
 export async function endUserSessions(exec: Executor, userId: string, keepSessionId?: string): Promise<void> {
   await exec
     .delete(sessions)
-    .where(keepSessionId ? and(eq(sessions.userId, userId), ne(sessions.id, keepSessionId)) : eq(sessions.userId, userId));
+    .where(
+      keepSessionId ? and(eq(sessions.userId, userId), ne(sessions.id, keepSessionId)) : eq(sessions.userId, userId),
+    );
 }

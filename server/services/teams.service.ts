@@ -72,7 +72,10 @@ export async function updateMemberRole(
     if (member.role === 'team_admin' && (await countAdminsLocked(tx, teamId)) <= 1) {
       throw new AppError('conflict', LAST_ADMIN_MESSAGE);
     }
-    await tx.update(memberships).set({ role }).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+    await tx
+      .update(memberships)
+      .set({ role })
+      .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
     await recordAudit(tx, {
       action: 'member.role_changed',
       actor: actor.user,
@@ -86,14 +89,25 @@ export async function updateMemberRole(
 }
 
 /** Removes a member; the last team admin cannot be removed (409). */
-export async function removeMember(db: Db, actor: Principal, teamId: string, userId: string, meta: RequestMeta): Promise<void> {
+export async function removeMember(
+  db: Db,
+  actor: Principal,
+  teamId: string,
+  userId: string,
+  meta: RequestMeta,
+): Promise<void> {
   await db.transaction(async (tx) => {
     const member = await memberOrThrow(tx, teamId, userId);
     if (member.role === 'team_admin' && (await countAdminsLocked(tx, teamId)) <= 1) {
       throw new AppError('conflict', LAST_ADMIN_MESSAGE);
     }
     await tx.delete(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
-    await recordAudit(tx, { action: 'member.removed', actor: actor.user, meta, detail: { teamId, userId, email: member.email } });
+    await recordAudit(tx, {
+      action: 'member.removed',
+      actor: actor.user,
+      meta,
+      detail: { teamId, userId, email: member.email },
+    });
   });
 }
 

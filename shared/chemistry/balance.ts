@@ -6,7 +6,7 @@ import { BalanceInputError } from './errors';
 import { formatEquation } from './format';
 import { integerNullspace, primitive, type Nullspace } from './nullspace';
 import { parseEquation } from './parse';
-import { add, div, lcm, mul, parseRational, rat, ratText, ratToNumber, type Rat } from './rational';
+import { div, lcm, mul, parseRational, rat, ratText, ratToNumber, type Rat } from './rational';
 import type { EnthalpyValue, ParsedEquation, ParseWarning, SpeciesTerm } from './types';
 
 /** Options of a balancing request (see `BalanceInput`). */
@@ -51,17 +51,25 @@ function readOptions(n: number, options: BalanceOptions): { fixed: FixedValue[];
     const field = `fixed.${key}`;
     if (!/^\d+$/.test(key)) throw new BalanceInputError(`Term index '${key}' is not a whole number from 0.`, field);
     const index = Number(key);
-    if (index >= n) throw new BalanceInputError(`There is no term ${index}: the equation has terms 0 to ${n - 1}.`, field);
+    if (index >= n)
+      throw new BalanceInputError(`There is no term ${index}: the equation has terms 0 to ${n - 1}.`, field);
     const value = parseRational(String(text));
     if (value === null) throw new BalanceInputError(`'${text}' is not an exact number such as 2, 1/2 or 0.5.`, field);
     if (value.n === 0n) throw new BalanceInputError(`A coefficient cannot be zero (term ${index}).`, field);
-    if (value.n < 0n) throw new BalanceInputError(`A coefficient must be positive (term ${index}); move the species to the other side instead.`, field);
+    if (value.n < 0n)
+      throw new BalanceInputError(
+        `A coefficient must be positive (term ${index}); move the species to the other side instead.`,
+        field,
+      );
     fixed.push({ index, key, value });
   }
   fixed.sort((a, b) => a.index - b.index);
   const normaliseTo = options.normaliseTo;
   if (normaliseTo !== undefined && (!Number.isInteger(normaliseTo) || normaliseTo < 0 || normaliseTo >= n)) {
-    throw new BalanceInputError(`There is no term ${normaliseTo}: the equation has terms 0 to ${n - 1}.`, 'normaliseTo');
+    throw new BalanceInputError(
+      `There is no term ${normaliseTo}: the equation has terms 0 to ${n - 1}.`,
+      'normaliseTo',
+    );
   }
   return { fixed, normaliseTo };
 }
@@ -98,9 +106,21 @@ function balancesExactly(rows: number[][], given: Rat[]): boolean {
  * The per-element table of the coefficients as typed, read off the composition matrix (same rows
  * as `elementBalanceTable`, which it falls back to for fractional coefficients).
  */
-function givenTable(keys: string[], rows: number[][], terms: SpeciesTerm[], given: Rat[]): BalanceResult['givenImbalance'] {
+function givenTable(
+  keys: string[],
+  rows: number[][],
+  terms: SpeciesTerm[],
+  given: Rat[],
+): BalanceResult['givenImbalance'] {
   if (!given.every((g) => g.d === 1n && g.n < 1_000_000n)) {
-    return elementBalanceTable(terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient })));
+    return elementBalanceTable(
+      terms.map((t) => ({
+        composition: t.species.composition,
+        charge: t.species.charge,
+        side: t.side,
+        coefficient: t.coefficient,
+      })),
+    );
   }
   const g = given.map((x) => Number(x.n));
   return keys.map((element, r) => {
@@ -197,7 +217,10 @@ function solveFixed(rows: number[][], terms: SpeciesTerm[], fixed: FixedValue[])
     const others = fixed.slice(0, f).map((o) => `term ${o.index} = ${ratText(o.value)}`);
     const context = others.length ? ` together with ${listWords(others)}` : '';
     if (withT.length === 0) {
-      throw new BalanceInputError(`No balancing has coefficient ${ratText(value)} for ${speciesLabel(terms[index]!, index)}${context}.`, field);
+      throw new BalanceInputError(
+        `No balancing has coefficient ${ratText(value)} for ${speciesLabel(terms[index]!, index)}${context}.`,
+        field,
+      );
     }
     const positive = positiveExample(kns, n + 1);
     if (positive === null) {
@@ -215,7 +238,12 @@ function solveFixed(rows: number[][], terms: SpeciesTerm[], fixed: FixedValue[])
   const example = positiveExample(kernelNs!, n + 1);
   const scaleToT = (v: bigint[]): Rat[] => v.slice(0, n).map((x) => rat(x, v[n]!));
   if (free.length === 0) {
-    return { status: 'balanced', coefficients: scaleToT(pivot[n]! < 0n ? pivot.map((x) => -x) : pivot), dimension: 0, warnings: [] };
+    return {
+      status: 'balanced',
+      coefficients: scaleToT(pivot[n]! < 0n ? pivot.map((x) => -x) : pivot),
+      dimension: 0,
+      warnings: [],
+    };
   }
   return {
     status: 'multiple',
@@ -264,14 +292,22 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
 
   const ns = integerNullspace(rows, n);
   const k = ns.basis.length;
-  const result = (partial: Partial<BalanceResult> & Pick<BalanceResult, 'status'>, coefficients: Rat[] | null): BalanceResult => {
+  const result = (
+    partial: Partial<BalanceResult> & Pick<BalanceResult, 'status'>,
+    coefficients: Rat[] | null,
+  ): BalanceResult => {
     let coeffs = coefficients ?? given;
     if (normaliseTo !== undefined && coefficients) {
       const pivot = coeffs[normaliseTo]!;
       coeffs = coeffs.map((c) => div(c, pivot));
     }
     const coeffText = coeffs.map(ratText);
-    const model: SpeciesTerm[] = terms.map((t, j) => ({ species: t.species, side: t.side, coefficient: coeffText[j]!, coefficientWritten: true }));
+    const model: SpeciesTerm[] = terms.map((t, j) => ({
+      species: t.species,
+      side: t.side,
+      coefficient: coeffText[j]!,
+      coefficientWritten: true,
+    }));
     let enthalpy: EnthalpyValue | null = null;
     if (parsed.enthalpy && partial.status !== 'impossible' && coefficients) {
       const factor = div(coeffs[0]!, given[0]!);
@@ -283,7 +319,8 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
       } else {
         warnings.push({
           code: 'enthalpy_not_carried',
-          message: 'ΔH was stated for the equation as typed, which is not a multiple of the balanced equation; it is not carried over.',
+          message:
+            'ΔH was stated for the equation as typed, which is not a multiple of the balanced equation; it is not carried over.',
         });
       }
     }
@@ -324,13 +361,19 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
   // 1. An element or the charge on one side only.
   const oneSide = oneSideReasons(keys, rows, terms);
   if (oneSide.length > 0) {
-    return result({ status: 'impossible', reason: oneSide.join(' '), ...(k > 0 ? { basis: basisText(ns.basis) } : {}) }, null);
+    return result(
+      { status: 'impossible', reason: oneSide.join(' '), ...(k > 0 ? { basis: basisText(ns.basis) } : {}) },
+      null,
+    );
   }
   // 2. Only the zero solution.
   if (k === 0) {
     const names = keys.map((key) => (key === 'charge' ? 'the charge' : key));
     return result(
-      { status: 'impossible', reason: `No balancing exists: the only coefficients that balance ${listWords(names)} together are all zero.` },
+      {
+        status: 'impossible',
+        reason: `No balancing exists: the only coefficients that balance ${listWords(names)} together are all zero.`,
+      },
       null,
     );
   }
@@ -364,7 +407,10 @@ export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOp
   if (fixed.length > 0) {
     const solved = solveFixed(rows, terms, fixed);
     if (solved.status === 'balanced') return result({ status: 'balanced' }, solved.coefficients);
-    return result({ status: 'multiple', dimension: solved.dimension, basis: basisText(solved.basis ?? []) }, solved.coefficients);
+    return result(
+      { status: 'multiple', dimension: solved.dimension, basis: basisText(solved.basis ?? []) },
+      solved.coefficients,
+    );
   }
   if (k === 1) {
     return result({ status: 'balanced' }, asGiven ? given : example!.map((x) => rat(x)));

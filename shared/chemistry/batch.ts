@@ -36,10 +36,24 @@ export function parseEquationBatch(text: string): BatchLine[] {
       out.push({ line, source, result: balanceEquationText({ equation: source }) });
     } catch (err) {
       if (err instanceof EquationParseError) {
-        const message = err.position.line === 1 && line > 1 ? err.message.replace(/ at column (\d+)/, ` at line ${line}, column $1`) : err.message;
-        out.push({ line, source, error: { message, details: { ...err.position, line, offset: lineOffset + err.position.offset } } });
+        const message =
+          err.position.line === 1 && line > 1
+            ? err.message.replace(/ at column (\d+)/, ` at line ${line}, column $1`)
+            : err.message;
+        out.push({
+          line,
+          source,
+          error: { message, details: { ...err.position, line, offset: lineOffset + err.position.offset } },
+        });
       } else if (err instanceof ChemistryError) {
-        out.push({ line, source, error: { message: err.message, details: { line, column: 1, offset: lineOffset, excerpt: source.slice(0, 48), expected: [] } } });
+        out.push({
+          line,
+          source,
+          error: {
+            message: err.message,
+            details: { line, column: 1, offset: lineOffset, excerpt: source.slice(0, 48), expected: [] },
+          },
+        });
       } else {
         throw err;
       }

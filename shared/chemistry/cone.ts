@@ -57,7 +57,7 @@ export function findStrictlyPositive(q: bigint[][], k: number, limit = 20_000): 
       if (sign(av) > 0) lo = lo === null || sign(sub(bound, lo)) > 0 ? bound : lo;
       else hi = hi === null || sign(sub(bound, hi)) < 0 ? bound : hi;
     }
-    w[v] = lo !== null && hi !== null ? div(add(lo, hi), rat(2n)) : lo ?? hi ?? ZERO;
+    w[v] = lo !== null && hi !== null ? div(add(lo, hi), rat(2n)) : (lo ?? hi ?? ZERO);
   }
   return w;
 

@@ -40,7 +40,8 @@ export function elementBalanceTable(terms: readonly CountedTerm[]): BalanceRow[]
   }
   if (charged) {
     totals.set('charge', { reactants: ZERO, products: ZERO });
-    for (const t of terms) if (t.charge !== 0) bump('charge', t.side, mul(parseRational(t.coefficient)!, rat(BigInt(t.charge))));
+    for (const t of terms)
+      if (t.charge !== 0) bump('charge', t.side, mul(parseRational(t.coefficient)!, rat(BigInt(t.charge))));
   }
   return [...totals].map(([element, { reactants, products }]) => ({
     element,

@@ -17,7 +17,11 @@ export const ELEMENT_SYMBOLS: readonly string[] = entries.map((e) => e.symbol);
 /** Isotope symbols balanced as their own symbols: deuterium and tritium. */
 export const ISOTOPE_SYMBOLS: readonly string[] = ['D', 'T'];
 
-const NAMES = new Map<string, string>([...entries.map((e) => [e.symbol, e.name] as const), ['D', 'Deuterium'], ['T', 'Tritium']]);
+const NAMES = new Map<string, string>([
+  ...entries.map((e) => [e.symbol, e.name] as const),
+  ['D', 'Deuterium'],
+  ['T', 'Tritium'],
+]);
 const NUMBERS = new Map<string, number>(entries.map((e, i) => [e.symbol, i + 1] as const));
 
 /** True for the 118 element symbols and for D and T. Case-sensitive ("Co" yes, "CO" no). */
@@ -38,7 +42,34 @@ export function elementName(symbol: string): string | undefined {
 
 // Non-metals and metalloids: used only to judge whether a trailing-sign charge reading looks
 // likely (`Fe3+` read as Fe₃⁺ is unlikely; `O2-` read as superoxide O₂⁻ is fine). Common practice, no source.
-const NON_METALS = new Set(['H', 'D', 'T', 'He', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Si', 'P', 'S', 'Cl', 'Ar', 'Ge', 'As', 'Se', 'Br', 'Kr', 'Sb', 'Te', 'I', 'Xe', 'At', 'Rn']);
+const NON_METALS = new Set([
+  'H',
+  'D',
+  'T',
+  'He',
+  'B',
+  'C',
+  'N',
+  'O',
+  'F',
+  'Ne',
+  'Si',
+  'P',
+  'S',
+  'Cl',
+  'Ar',
+  'Ge',
+  'As',
+  'Se',
+  'Br',
+  'Kr',
+  'Sb',
+  'Te',
+  'I',
+  'Xe',
+  'At',
+  'Rn',
+]);
 
 /** True when the symbol is conventionally a metal (everything except non-metals and metalloids). */
 export function isMetal(symbol: string): boolean {

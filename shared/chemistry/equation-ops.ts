@@ -13,10 +13,12 @@ const flip = (s: Side): Side => (s === 'reactant' ? 'product' : 'reactant');
  * `heatTerms`, `statedEnthalpy`) are carried over unchanged.
  */
 export function reverseEquation<T extends EquationModel>(eq: T): T {
-  const terms = [...eq.terms.filter((t) => t.side === 'product'), ...eq.terms.filter((t) => t.side === 'reactant')].map((t) => ({
-    ...t,
-    side: flip(t.side),
-  }));
+  const terms = [...eq.terms.filter((t) => t.side === 'product'), ...eq.terms.filter((t) => t.side === 'reactant')].map(
+    (t) => ({
+      ...t,
+      side: flip(t.side),
+    }),
+  );
   const enthalpy: EnthalpyValue | null = eq.enthalpy
     ? { ...eq.enthalpy, value: -eq.enthalpy.value, stated: { ...eq.enthalpy.stated, value: -eq.enthalpy.stated.value } }
     : null;
@@ -60,13 +62,22 @@ export function equationFromBalanceResult(result: BalanceResult): EquationModel 
     terms: result.terms.map((t) => {
       const { warnings: _w, ...species } = parseFormula(t.formula);
       return {
-        species: { ...species, phase: t.phase as EquationModel['terms'][number]['species']['phase'], descriptor: t.descriptor },
+        species: {
+          ...species,
+          phase: t.phase as EquationModel['terms'][number]['species']['phase'],
+          descriptor: t.descriptor,
+        },
         side: t.side,
         coefficient: t.coefficient,
         coefficientWritten: true,
       };
     }),
-    enthalpy: result.enthalpy ? { value: result.enthalpy.value, ...(result.enthalpy.uncertainty === undefined ? {} : { uncertainty: result.enthalpy.uncertainty }), stated: { value: result.enthalpy.value, unit: 'kJ', perMol: true } } : null,
+    enthalpy: result.enthalpy
+      ? {
+          value: result.enthalpy.value,
+          ...(result.enthalpy.uncertainty === undefined ? {} : { uncertainty: result.enthalpy.uncertainty }),
+          stated: { value: result.enthalpy.value, unit: 'kJ', perMol: true },
+        }
+      : null,
   };
 }
-

@@ -22,7 +22,9 @@ function itemsIn(items: readonly FormulaItem[], sub: (digits: string) => string)
 }
 
 function partsIn(parts: readonly FormulaPart[], sub: (digits: string) => string, dot: string): string {
-  return parts.map((p, i) => (i > 0 && p.multiplier !== 1 ? String(p.multiplier) : '') + itemsIn(p.items, sub)).join(dot);
+  return parts
+    .map((p, i) => (i > 0 && p.multiplier !== 1 ? String(p.multiplier) : '') + itemsIn(p.items, sub))
+    .join(dot);
 }
 
 function phaseText(species: ParsedSpecies, html: boolean): string {
@@ -40,15 +42,27 @@ function speciesBody(species: ParsedSpecies, format: FormulaFormat): string {
       return species.formula + phaseText(species, false);
     case 'unicode': {
       const charge = q === 0 ? '' : toScript(mag, SUP) + (q > 0 ? '⁺' : '⁻');
-      return (species.electron ? 'e' : partsIn(species.parts, (d) => toScript(d, SUB), '·')) + charge + phaseText(species, false);
+      return (
+        (species.electron ? 'e' : partsIn(species.parts, (d) => toScript(d, SUB), '·')) +
+        charge +
+        phaseText(species, false)
+      );
     }
     case 'html': {
       const charge = q === 0 ? '' : `<sup>${mag}${q > 0 ? '+' : '−'}</sup>`;
-      return (species.electron ? 'e' : partsIn(species.parts, (d) => `<sub>${d}</sub>`, '·')) + charge + phaseText(species, true);
+      return (
+        (species.electron ? 'e' : partsIn(species.parts, (d) => `<sub>${d}</sub>`, '·')) +
+        charge +
+        phaseText(species, true)
+      );
     }
     case 'mhchem':
       // mhchem writes the adduct dot as "*" and charges as ^2-.
-      return (species.electron ? 'e' : partsIn(species.parts, (d) => d, '*')) + (q === 0 ? '' : `^${mag}${q > 0 ? '+' : '-'}`) + phaseText(species, false);
+      return (
+        (species.electron ? 'e' : partsIn(species.parts, (d) => d, '*')) +
+        (q === 0 ? '' : `^${mag}${q > 0 ? '+' : '-'}`) +
+        phaseText(species, false)
+      );
   }
 }
 
@@ -106,8 +120,7 @@ export function formatEquation(eq: EquationModel | BalanceResult, format: Formul
       .filter((t) => t.side === s)
       .map((t) => (t.coefficient === '1' ? '' : `${t.coefficient} `) + speciesBody(t.species, format))
       .join(' + ');
-  const arrow =
-    format === 'text' || format === 'mhchem' ? (equilibrium ? '<=>' : '->') : equilibrium ? '⇌' : '→';
+  const arrow = format === 'text' || format === 'mhchem' ? (equilibrium ? '<=>' : '->') : equilibrium ? '⇌' : '→';
   const core = `${side('reactant')} ${arrow} ${side('product')}`;
   if (format === 'mhchem') {
     const tail = model.enthalpy ? ` \\quad ${formatEnthalpy(model.enthalpy, 'mhchem')}` : '';

@@ -10,7 +10,15 @@ export interface AstSpan {
 
 export type AstItem =
   | { kind: 'element'; symbol: string; count: number; countText: string | null; start: number; end: number }
-  | { kind: 'group'; bracket: '(' | '['; items: AstItem[]; count: number; countText: string | null; start: number; end: number };
+  | {
+      kind: 'group';
+      bracket: '(' | '[';
+      items: AstItem[];
+      count: number;
+      countText: string | null;
+      start: number;
+      end: number;
+    };
 
 export interface AstPart {
   multiplier: number;

@@ -43,9 +43,16 @@ function describeFound(found: string | null): string {
  * states the problem (e.g. "unknown element symbol 'Xx'"); " at column N" is appended, or put
  * where `what` says `{at}`.
  */
-export function parseErrorAt(source: string, offset: number, what: string, expected: string[] = []): EquationParseError {
+export function parseErrorAt(
+  source: string,
+  offset: number,
+  what: string,
+  expected: string[] = [],
+): EquationParseError {
   const { line, column } = positionAt(source, offset);
-  const placed = what.includes('{at}') ? what.replace('{at}', `at ${where(line, column)}`) : `${what} at ${where(line, column)}`;
+  const placed = what.includes('{at}')
+    ? what.replace('{at}', `at ${where(line, column)}`)
+    : `${what} at ${where(line, column)}`;
   const sentence = placed.charAt(0).toUpperCase() + placed.slice(1);
   return new EquationParseError(sentence, {
     line,
@@ -68,7 +75,12 @@ export function rewritePeggyError(source: string, err: PeggyErrorLike): Equation
   const expected = [...new Set(err.expected.map(describeExpectation).filter((w): w is string => w !== null))];
   const found = err.found;
   if (found === '\n' || found === '\r') {
-    return parseErrorAt(source, offset, 'found a line break {at}: only one equation per line here (use the batch input for several)', expected);
+    return parseErrorAt(
+      source,
+      offset,
+      'found a line break {at}: only one equation per line here (use the batch input for several)',
+      expected,
+    );
   }
   if (found === null && expected.some((w) => w.startsWith('an arrow'))) {
     return parseErrorAt(

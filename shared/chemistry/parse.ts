@@ -86,7 +86,11 @@ export function parseEquation(text: string): ParsedEquation {
     }
     if (species === 0) {
       const where = side === 'reactant' ? 0 : arrowOffset;
-      throw parseErrorAt(text, where, `the ${side === 'reactant' ? 'reactants' : 'products'} need at least one species`);
+      throw parseErrorAt(
+        text,
+        where,
+        `the ${side === 'reactant' ? 'reactants' : 'products'} need at least one species`,
+      );
     }
   };
   readSide('reactant', ast.left, ast.arrow.start);
@@ -100,7 +104,7 @@ export function parseEquation(text: string): ParsedEquation {
     const first = heatTerms[0]!;
     const fromHeatValue: EnthalpyValue = {
       value: fromHeat,
-      stated: { value: fromHeat / (toKilojoules(1, first.stated.unit)), unit: first.stated.unit, perMol: false },
+      stated: { value: fromHeat / toKilojoules(1, first.stated.unit), unit: first.stated.unit, perMol: false },
     };
     if (statedEnthalpy === null) enthalpy = fromHeatValue;
     else if (Math.abs(statedEnthalpy.value - fromHeat) > 1e-9 * Math.max(1, Math.abs(fromHeat))) {

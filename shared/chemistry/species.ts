@@ -44,12 +44,7 @@ function chargeValue(c: AstCharge): number {
  * elsewhere they stay subscripts (`NH4+` = NH₄⁺), with an `ambiguous_charge` warning when that
  * reading looks unlikely (`Fe3+`, `SO42-`).
  */
-export function buildSpecies(
-  ast: AstSpecies,
-  source: string,
-  warnings: ParseWarning[],
-  term?: number,
-): ParsedSpecies {
+export function buildSpecies(ast: AstSpecies, source: string, warnings: ParseWarning[], term?: number): ParsedSpecies {
   const { column } = positionAt(source, ast.start);
   const span = { start: ast.start, end: ast.end, column };
   if (ast.electron) {
@@ -95,7 +90,8 @@ export function buildSpecies(
         const sign = ast.charge.sign > 0 ? '+' : '-';
         const prefix = source.slice(ast.start, last.end - 1);
         const reading = `${partsText(parts)}${chargeText(charge)}`;
-        const suggestion = digit !== '0' ? `; if you meant charge ${digit}${sign}, write ${prefix}^${digit}${sign}` : '';
+        const suggestion =
+          digit !== '0' ? `; if you meant charge ${digit}${sign}, write ${prefix}^${digit}${sign}` : '';
         const name = single && last.kind === 'element' ? ` (${last.count} × ${elementName(last.symbol)})` : '';
         warnings.push({
           code: 'ambiguous_charge',

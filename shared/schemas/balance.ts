@@ -57,9 +57,7 @@ export const balanceResultSchema = z.object({
    * the input stated one (trailing ΔH or heat term) and the answer is a multiple of the input.
    * Added by the chemistry core; optional, so older clients can ignore it.
    */
-  enthalpy: z
-    .object({ value: z.number(), unit: z.literal('kJ/mol'), uncertainty: z.number().optional() })
-    .optional(),
+  enthalpy: z.object({ value: z.number(), unit: z.literal('kJ/mol'), uncertainty: z.number().optional() }).optional(),
 });
 export type BalanceResult = z.infer<typeof balanceResultSchema>;
 

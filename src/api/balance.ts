@@ -9,5 +9,7 @@ export function balanceEquation(input: BalanceInput, signal?: AbortSignal): Prom
 
 /** Balances many equations, one per line; each line gets its result or its own parse error. */
 export async function balanceBatch(text: string, signal?: AbortSignal): Promise<BalanceBatchLine[]> {
-  return (await http.post('/balance/batch', { text }, { schema: balanceBatchResultSchema, ...(signal ? { signal } : {}) })).results;
+  return (
+    await http.post('/balance/batch', { text }, { schema: balanceBatchResultSchema, ...(signal ? { signal } : {}) })
+  ).results;
 }

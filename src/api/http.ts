@@ -112,9 +112,14 @@ export async function request<T = void>(method: HttpMethod, path: string, option
   const parsed = options.schema.safeParse(json);
   if (!parsed.success) {
     const where = parsed.error.issues[0]?.path.join('.') || 'the reply';
-    throw new ApiError(response.status, 'unexpected_reply', `The server's reply was not in the expected shape (at ${where}).`, {
-      issues: parsed.error.issues.map((i) => ({ path: i.path.map(String), message: i.message })),
-    });
+    throw new ApiError(
+      response.status,
+      'unexpected_reply',
+      `The server's reply was not in the expected shape (at ${where}).`,
+      {
+        issues: parsed.error.issues.map((i) => ({ path: i.path.map(String), message: i.message })),
+      },
+    );
   }
   return parsed.data;
 }

@@ -67,7 +67,13 @@ export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>
     } catch (error) {
       if (mine !== sequence) return;
       if (isApiError(error) && error.details.aborted === true) return;
-      if (isApiError(error) && (error.code === 'network_error' || error.code === 'unexpected_reply' || error.code === 'unavailable' || error.code === 'rate_limited')) {
+      if (
+        isApiError(error) &&
+        (error.code === 'network_error' ||
+          error.code === 'unexpected_reply' ||
+          error.code === 'unavailable' ||
+          error.code === 'rate_limited')
+      ) {
         requestError.value = null;
         optionErrors.value = {};
         balanceLocally(body);

@@ -44,7 +44,9 @@ export function apiErrorText(error: unknown): string {
   }
   if (error.code === 'rate_limited') {
     const wait = retryAfterSeconds(error);
-    return wait === undefined ? 'Too many attempts — wait a moment and try again.' : `Too many attempts — try again in ${wait} s.`;
+    return wait === undefined
+      ? 'Too many attempts — wait a moment and try again.'
+      : `Too many attempts — try again in ${wait} s.`;
   }
   return error.message.trim() !== '' ? error.message : wordsByCode[error.code];
 }

@@ -95,7 +95,10 @@ export function chunkLines(lines: readonly SourceLine[], size: number, maxChars 
   let current: Chunk = { text: '', lines: [] };
   for (const line of lines) {
     const addition = (current.lines.length === 0 ? '' : '\n') + line.text;
-    if (current.lines.length > 0 && (current.lines.length >= size || current.text.length + addition.length > maxChars)) {
+    if (
+      current.lines.length > 0 &&
+      (current.lines.length >= size || current.text.length + addition.length > maxChars)
+    ) {
       chunks.push(current);
       current = { text: '', lines: [] };
     }

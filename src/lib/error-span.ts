@@ -22,7 +22,12 @@ export function markColumn(line: string, column: number): MarkedLine {
   const rest = line.slice(start);
   const word = /^(?:[A-Z][a-z]*|[a-z]+|\d+)/.exec(rest);
   const length = word ? word[0].length : Array.from(rest)[0]!.length;
-  return { before: line.slice(0, start), bad: line.slice(start, start + length), after: line.slice(start + length), atEnd: false };
+  return {
+    before: line.slice(0, start),
+    bad: line.slice(start, start + length),
+    after: line.slice(start + length),
+    atEnd: false,
+  };
 }
 
 /** The given line (1-based) of a possibly multi-line text. */

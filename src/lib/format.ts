@@ -5,7 +5,11 @@ export function formatDateTime(iso: string | null, locale = 'en-GB', timeZone?: 
   if (iso === null) return '—';
   const date = new Date(iso);
   if (Number.isNaN(date.getTime())) return iso;
-  return new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short', ...(timeZone ? { timeZone } : {}) }).format(date);
+  return new Intl.DateTimeFormat(locale, {
+    dateStyle: 'medium',
+    timeStyle: 'short',
+    ...(timeZone ? { timeZone } : {}),
+  }).format(date);
 }
 
 /** The text of an e-mail split into plain pieces and links, so links can be made clickable without v-html. */

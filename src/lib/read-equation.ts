@@ -15,9 +15,7 @@ export interface ParseProblem {
 }
 
 export type EquationReading =
-  | { kind: 'empty' }
-  | { kind: 'ok'; parsed: ParsedEquation }
-  | { kind: 'error'; problem: ParseProblem };
+  { kind: 'empty' } | { kind: 'ok'; parsed: ParsedEquation } | { kind: 'error'; problem: ParseProblem };
 
 /** Reads the text with the shared parser; never throws for bad input. */
 export function readEquation(text: string): EquationReading {
@@ -25,9 +23,20 @@ export function readEquation(text: string): EquationReading {
   try {
     return { kind: 'ok', parsed: parseEquation(text) };
   } catch (error) {
-    if (error instanceof EquationParseError) return { kind: 'error', problem: { message: error.message, ...error.position } };
+    if (error instanceof EquationParseError)
+      return { kind: 'error', problem: { message: error.message, ...error.position } };
     // Any other failure is a bug in the core; show it rather than crash the page.
     const message = error instanceof Error ? error.message : String(error);
-    return { kind: 'error', problem: { message: `The equation could not be read (${message}).`, line: 1, column: 1, offset: 0, excerpt: text.slice(0, 40), expected: [] } };
+    return {
+      kind: 'error',
+      problem: {
+        message: `The equation could not be read (${message}).`,
+        line: 1,
+        column: 1,
+        offset: 0,
+        excerpt: text.slice(0, 40),
+        expected: [],
+      },
+    };
   }
 }

@@ -38,7 +38,15 @@ export function toBatchRow(item: BatchLine, originalLine: number): BatchRow {
   if ('error' in item) {
     // The core names the place within the chunk it was given; the row states the input's own line and column instead.
     const message = item.error.message.replace(/\s+at (line \d+, )?column \d+\s*$/, '');
-    return { line: originalLine, source: item.source, status: 'error', equationHtml: null, equationText: null, message, column: item.error.details.column };
+    return {
+      line: originalLine,
+      source: item.source,
+      status: 'error',
+      equationHtml: null,
+      equationText: null,
+      message,
+      column: item.error.details.column,
+    };
   }
   const r = item.result;
   const balanced = r.status === 'balanced';
@@ -48,21 +56,33 @@ export function toBatchRow(item: BatchLine, originalLine: number): BatchRow {
     status: r.status,
     equationHtml: balanced ? formatEquation(r, 'html') : null,
     equationText: balanced ? r.equation : null,
-    message: r.status === 'impossible' ? (r.reason ?? 'cannot be balanced') : r.status === 'multiple' ? `${r.dimension ?? 'several'} independent balancings; fix coefficients on the workbench` : null,
+    message:
+      r.status === 'impossible'
+        ? (r.reason ?? 'cannot be balanced')
+        : r.status === 'multiple'
+          ? `${r.dimension ?? 'several'} independent balancings; fix coefficients on the workbench`
+          : null,
     column: null,
   };
 }
 
 /** Server failures after which the browser takes over (no batch endpoint, unreachable, over the rate). */
 function shouldFallBack(error: unknown): boolean {
-  return error instanceof ApiError && ['not_found', 'network_error', 'unexpected_reply', 'unavailable', 'rate_limited'].includes(error.code) && error.details.aborted !== true;
+  return (
+    error instanceof ApiError &&
+    ['not_found', 'network_error', 'unexpected_reply', 'unavailable', 'rate_limited'].includes(error.code) &&
+    error.details.aborted !== true
+  );
 }
 
 /**
  * Balances every line. Resolves with rows in input order and whether the browser had to do
  * (part of) the work. Rejects only when aborted or the server refuses the content itself.
  */
-export async function runBatch(lines: readonly SourceLine[], options: BatchRunOptions): Promise<{ rows: BatchRow[]; local: boolean }> {
+export async function runBatch(
+  lines: readonly SourceLine[],
+  options: BatchRunOptions,
+): Promise<{ rows: BatchRow[]; local: boolean }> {
   const chunks = chunkLines(lines, options.chunkSize ?? 250);
   const total = lines.length;
   const rows: BatchRow[] = [];

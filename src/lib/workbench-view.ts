@@ -26,7 +26,8 @@ export interface Transforms {
 export function readFactor(text: string): { ok: true; value: string } | { ok: false; message: string } {
   const r = parseRational(text);
   if (r === null) return { ok: false, message: 'Write an exact number such as 2, 1/2 or 0.5.' };
-  if (r.n <= 0n) return { ok: false, message: 'The factor must be greater than zero (use Reverse to turn the equation round).' };
+  if (r.n <= 0n)
+    return { ok: false, message: 'The factor must be greater than zero (use Reverse to turn the equation round).' };
   return { ok: true, value: r.d === 1n ? String(r.n) : `${r.n}/${r.d}` };
 }
 
@@ -34,7 +35,11 @@ export function readFactor(text: string): { ok: true; value: string } | { ok: fa
  * The balanced equation as shown, or null when there is no single balancing to show.
  * `equilibrium` keeps the typed ⇌ arrow (the balance reply does not carry it).
  */
-export function displayedEquation(result: BalanceResult, transforms: Transforms, equilibrium = false): (EquationModel & { equilibrium: boolean }) | null {
+export function displayedEquation(
+  result: BalanceResult,
+  transforms: Transforms,
+  equilibrium = false,
+): (EquationModel & { equilibrium: boolean }) | null {
   if (result.status !== 'balanced') return null;
   let model: EquationModel & { equilibrium: boolean } = { ...equationFromBalanceResult(result), equilibrium };
   if (transforms.reversed) model = reverseEquation(model);
@@ -45,7 +50,12 @@ export function displayedEquation(result: BalanceResult, transforms: Transforms,
 
 /** Terms as the element table counts them. */
 export function countedTerms(terms: readonly SpeciesTerm[]): CountedTerm[] {
-  return terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient }));
+  return terms.map((t) => ({
+    composition: t.species.composition,
+    charge: t.species.charge,
+    side: t.side,
+    coefficient: t.coefficient,
+  }));
 }
 
 /** Element table rows with a flag for the rows whose sides differ. */
@@ -70,7 +80,11 @@ export function statusSummary(result: BalanceResult): { tone: StatusTone; label:
   switch (result.status) {
     case 'balanced':
       return result.asGiven
-        ? { tone: 'success', label: 'Balanced as written', detail: 'Your coefficients conserve every element and the charge.' }
+        ? {
+            tone: 'success',
+            label: 'Balanced as written',
+            detail: 'Your coefficients conserve every element and the charge.',
+          }
         : {
             tone: 'success',
             label: 'Balanced',
@@ -87,7 +101,11 @@ export function statusSummary(result: BalanceResult): { tone: StatusTone; label:
       };
     }
     case 'impossible':
-      return { tone: 'error', label: 'Cannot be balanced', detail: result.reason ?? 'No positive coefficients conserve every element and the charge.' };
+      return {
+        tone: 'error',
+        label: 'Cannot be balanced',
+        detail: result.reason ?? 'No positive coefficients conserve every element and the charge.',
+      };
   }
 }
 
@@ -112,13 +130,22 @@ export interface MolarMassRow {
 /** Molar masses of the terms, in input order. */
 export function molarMassRows(terms: readonly SpeciesTerm[]): MolarMassRow[] {
   return terms.map((t, index) => {
-    if (t.species.electron || Object.keys(t.species.composition).length === 0) return { index, text: null, note: 'electron: mass neglected' };
+    if (t.species.electron || Object.keys(t.species.composition).length === 0)
+      return { index, text: null, note: 'electron: mass neglected' };
     try {
       const m = molarMass(t.species.composition);
       const notes: string[] = [];
-      if (m.approximateElements.length > 0) notes.push(`${m.approximateElements.join(', ')}: no standard atomic weight, mass number of the longest-lived isotope used`);
-      if (m.conventionalElements.length > 0) notes.push(`${m.conventionalElements.join(', ')}: conventional value of an interval weight`);
-      return { index, text: formatWithUncertainty(m.value, m.uncertainty), note: notes.length > 0 ? notes.join('; ') : null };
+      if (m.approximateElements.length > 0)
+        notes.push(
+          `${m.approximateElements.join(', ')}: no standard atomic weight, mass number of the longest-lived isotope used`,
+        );
+      if (m.conventionalElements.length > 0)
+        notes.push(`${m.conventionalElements.join(', ')}: conventional value of an interval weight`);
+      return {
+        index,
+        text: formatWithUncertainty(m.value, m.uncertainty),
+        note: notes.length > 0 ? notes.join('; ') : null,
+      };
     } catch (error) {
       return { index, text: null, note: error instanceof Error ? error.message : 'not available' };
     }

@@ -21,7 +21,8 @@ export type GuardOutcome =
 export function guardNavigation(target: GuardTarget, session: SessionInfo): GuardOutcome {
   if (target.guestOnly && session.user !== null) return { kind: 'redirect', to: { name: 'workbench' } };
   const decision = decideAccess(target.access ?? 'signed_in', session, target.teamId);
-  if (decision === 'sign_in') return { kind: 'redirect', to: { name: 'sign-in', query: { redirect: target.fullPath } } };
+  if (decision === 'sign_in')
+    return { kind: 'redirect', to: { name: 'sign-in', query: { redirect: target.fullPath } } };
   if (decision === 'forbidden') return { kind: 'forbidden' };
   return { kind: 'proceed' };
 }

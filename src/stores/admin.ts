@@ -41,5 +41,17 @@ export const useAdminStore = defineStore('admin', () => {
     teams.value = await adminApi.listTeams();
   }
 
-  return { users, teams, outbox, events, loading, loadUsers, loadTeams, loadOutbox, loadEvents, updateUser, createTeam };
+  return {
+    users,
+    teams,
+    outbox,
+    events,
+    loading,
+    loadUsers,
+    loadTeams,
+    loadOutbox,
+    loadEvents,
+    updateUser,
+    createTeam,
+  };
 });

@@ -24,8 +24,10 @@ const THIRTY =
 const HARD = {
   'C57H110O6 combustion': 'C57H110O6 + O2 -> CO2 + H2O',
   // 12 species, 9 of them ions; several independent balancings, so the exact LP runs too.
-  'redox with a dozen ions': 'MnO4^- + Fe^2+ + Cr2O7^2- + C2O4^2- + H^+ + Cl^- -> Mn^2+ + Fe^3+ + Cr^3+ + CO2 + H2O + Cl2',
-  'ferrocyanide–permanganate (9 species)': 'K4[Fe(CN)6] + KMnO4 + H2SO4 -> KHSO4 + Fe2(SO4)3 + MnSO4 + HNO3 + CO2 + H2O',
+  'redox with a dozen ions':
+    'MnO4^- + Fe^2+ + Cr2O7^2- + C2O4^2- + H^+ + Cl^- -> Mn^2+ + Fe^3+ + Cr^3+ + CO2 + H2O + Cl2',
+  'ferrocyanide–permanganate (9 species)':
+    'K4[Fe(CN)6] + KMnO4 + H2SO4 -> KHSO4 + Fe2(SO4)3 + MnSO4 + HNO3 + CO2 + H2O',
   '30 species': THIRTY,
 };
 
@@ -34,15 +36,23 @@ const OPTIONS = { time: 3000, warmupTime: 1500, warmupIterations: 2000 };
 
 describe('parse and balance, typical equations (≤ 8 species)', () => {
   // One iteration = all 10 typical equations: equations per second = hz × 10.
-  bench('10 typical equations per iteration (equations/s = hz × 10)', () => {
-    for (const equation of TYPICAL) balanceEquationText({ equation });
-  }, OPTIONS);
+  bench(
+    '10 typical equations per iteration (equations/s = hz × 10)',
+    () => {
+      for (const equation of TYPICAL) balanceEquationText({ equation });
+    },
+    OPTIONS,
+  );
 });
 
 describe('parse and balance, hard cases', () => {
   for (const [name, equation] of Object.entries(HARD)) {
-    bench(name, () => {
-      balanceEquationText({ equation });
-    }, OPTIONS);
+    bench(
+      name,
+      () => {
+        balanceEquationText({ equation });
+      },
+      OPTIONS,
+    );
   }
 });

@@ -14,25 +14,39 @@ const token = await t.tokenFor('member');
 afterAll(async () => t.close());
 
 describe('API over HTTP (in-memory PGlite)', () => {
-  bench('POST /api/v1/balance (esterification, public)', async () => {
-    const res = await fetch(`${t.url}/api/v1/balance`, {
-      method: 'POST',
-      headers: { 'Content-Type': 'application/json' },
-      body: JSON.stringify({ equation: 'C2H5OH(l) + CH3COOH(l) -> CH3COOC2H5(l) + H2O(l)' }),
-    });
-    if (res.status !== 200) throw new Error(`status ${res.status}`);
-    await res.arrayBuffer();
-  }, { time: 3000 });
+  bench(
+    'POST /api/v1/balance (esterification, public)',
+    async () => {
+      const res = await fetch(`${t.url}/api/v1/balance`, {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json' },
+        body: JSON.stringify({ equation: 'C2H5OH(l) + CH3COOH(l) -> CH3COOC2H5(l) + H2O(l)' }),
+      });
+      if (res.status !== 200) throw new Error(`status ${res.status}`);
+      await res.arrayBuffer();
+    },
+    { time: 3000 },
+  );
 
-  bench('GET /api/v1/session (session cookie)', async () => {
-    const res = await fetch(`${t.url}/api/v1/session`, { headers: { Cookie: cookie } });
-    if (res.status !== 200) throw new Error(`status ${res.status}`);
-    await res.arrayBuffer();
-  }, { time: 3000 });
+  bench(
+    'GET /api/v1/session (session cookie)',
+    async () => {
+      const res = await fetch(`${t.url}/api/v1/session`, { headers: { Cookie: cookie } });
+      if (res.status !== 200) throw new Error(`status ${res.status}`);
+      await res.arrayBuffer();
+    },
+    { time: 3000 },
+  );
 
-  bench('GET /api/v1/teams/:teamId/notes (Bearer token, team check)', async () => {
-    const res = await fetch(`${t.url}/api/v1/teams/${t.ids.teams.kestrel}/notes`, { headers: { Authorization: `Bearer ${token}` } });
-    if (res.status !== 200) throw new Error(`status ${res.status}`);
-    await res.arrayBuffer();
-  }, { time: 3000 });
+  bench(
+    'GET /api/v1/teams/:teamId/notes (Bearer token, team check)',
+    async () => {
+      const res = await fetch(`${t.url}/api/v1/teams/${t.ids.teams.kestrel}/notes`, {
+        headers: { Authorization: `Bearer ${token}` },
+      });
+      if (res.status !== 200) throw new Error(`status ${res.status}`);
+      await res.arrayBuffer();
+    },
+    { time: 3000 },
+  );
 });

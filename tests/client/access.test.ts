@@ -14,9 +14,21 @@ const user = (siteRoles: SiteRole[] = []) => ({
 });
 
 const anonymous: SessionInfo = { user: null, teams: [], via: 'none' };
-const viewer: SessionInfo = { user: user(), teams: [{ id: teamA, name: 'A', slug: 'a', role: 'viewer' }], via: 'session' };
-const member: SessionInfo = { user: user(), teams: [{ id: teamA, name: 'A', slug: 'a', role: 'member' }], via: 'session' };
-const teamAdmin: SessionInfo = { user: user(), teams: [{ id: teamA, name: 'A', slug: 'a', role: 'team_admin' }], via: 'session' };
+const viewer: SessionInfo = {
+  user: user(),
+  teams: [{ id: teamA, name: 'A', slug: 'a', role: 'viewer' }],
+  via: 'session',
+};
+const member: SessionInfo = {
+  user: user(),
+  teams: [{ id: teamA, name: 'A', slug: 'a', role: 'member' }],
+  via: 'session',
+};
+const teamAdmin: SessionInfo = {
+  user: user(),
+  teams: [{ id: teamA, name: 'A', slug: 'a', role: 'team_admin' }],
+  via: 'session',
+};
 const siteAdmin: SessionInfo = { user: user(['site_admin']), teams: [], via: 'session' };
 const curator: SessionInfo = { user: user(['curator']), teams: [], via: 'session' };
 
@@ -58,7 +70,10 @@ describe('decideAccess', () => {
 });
 
 describe('guardNavigation', () => {
-  const target = (access: Parameters<typeof decideAccess>[0] | undefined, extra: Partial<{ guestOnly: boolean; teamId: string }> = {}) => ({
+  const target = (
+    access: Parameters<typeof decideAccess>[0] | undefined,
+    extra: Partial<{ guestOnly: boolean; teamId: string }> = {},
+  ) => ({
     fullPath: '/admin/users?x=1',
     access,
     guestOnly: extra.guestOnly ?? false,
@@ -82,7 +97,10 @@ describe('guardNavigation', () => {
   });
 
   it('sends signed-in users away from the sign-in page', () => {
-    expect(guardNavigation(target('public', { guestOnly: true }), viewer)).toEqual({ kind: 'redirect', to: { name: 'workbench' } });
+    expect(guardNavigation(target('public', { guestOnly: true }), viewer)).toEqual({
+      kind: 'redirect',
+      to: { name: 'workbench' },
+    });
     expect(guardNavigation(target('public', { guestOnly: true }), anonymous)).toEqual({ kind: 'proceed' });
   });
 });

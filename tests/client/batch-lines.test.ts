@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { batchLines, chunkLines, equationLines, firstCsvField, guessDelimiter } from '@/lib/batch-lines';
 
 describe('firstCsvField', () => {
-  it('takes the text up to the first comma', () => expect(firstCsvField('H2 + O2 -> H2O, combustion, 3')).toBe('H2 + O2 -> H2O'));
+  it('takes the text up to the first comma', () =>
+    expect(firstCsvField('H2 + O2 -> H2O, combustion, 3')).toBe('H2 + O2 -> H2O'));
   it('honours quotes and doubled quotes', () => {
     expect(firstCsvField('"CH4 + O2 -> CO2 + H2O, ΔH = -890 kJ",note')).toBe('CH4 + O2 -> CO2 + H2O, ΔH = -890 kJ');
     expect(firstCsvField('"say ""hi""",x')).toBe('say "hi"');
@@ -45,7 +46,10 @@ describe('chunkLines', () => {
     expect(chunks[0]!.text).toBe('L0\nL1\nL2');
   });
   it('also starts a new chunk before the character limit is passed', () => {
-    const long = [{ line: 1, text: 'x'.repeat(60) }, { line: 2, text: 'y'.repeat(60) }];
+    const long = [
+      { line: 1, text: 'x'.repeat(60) },
+      { line: 2, text: 'y'.repeat(60) },
+    ];
     expect(chunkLines(long, 100, 100).map((c) => c.lines)).toEqual([[1], [2]]);
   });
   it('gives no chunks for no lines', () => expect(chunkLines([], 10)).toEqual([]));

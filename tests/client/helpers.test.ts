@@ -8,13 +8,17 @@ import { validateForm } from '@/lib/validate-form';
 
 describe('apiErrorText', () => {
   it('says how long to wait after too many attempts', () => {
-    expect(apiErrorText(new ApiError(429, 'rate_limited', 'Too many sign-in attempts.', { retryAfterSeconds: 37 }))).toBe('Too many attempts — try again in 37 s.');
+    expect(
+      apiErrorText(new ApiError(429, 'rate_limited', 'Too many sign-in attempts.', { retryAfterSeconds: 37 })),
+    ).toBe('Too many attempts — try again in 37 s.');
   });
   it('still says something when the wait is unknown', () => {
     expect(apiErrorText(new ApiError(429, 'rate_limited', 'x'))).toMatch(/^Too many attempts/);
   });
   it('prefers the server’s message', () => {
-    expect(apiErrorText(new ApiError(401, 'invalid_credentials', 'E-mail or password is wrong.'))).toBe('E-mail or password is wrong.');
+    expect(apiErrorText(new ApiError(401, 'invalid_credentials', 'E-mail or password is wrong.'))).toBe(
+      'E-mail or password is wrong.',
+    );
   });
   it('falls back to words for the code', () => {
     expect(apiErrorText(new ApiError(403, 'forbidden', ''))).toBe('Your role does not allow this.');
@@ -51,12 +55,21 @@ describe('fieldErrors', () => {
 });
 
 describe('validateForm', () => {
-  const schema = z.object({ email: z.email('Enter an e-mail address.'), password: z.string().min(10, 'Use at least 10 characters.') });
+  const schema = z.object({
+    email: z.email('Enter an e-mail address.'),
+    password: z.string().min(10, 'Use at least 10 characters.'),
+  });
   it('returns the parsed data', () => {
-    expect(validateForm(schema, { email: 'a@b.example', password: '0123456789' })).toEqual({ ok: true, data: { email: 'a@b.example', password: '0123456789' } });
+    expect(validateForm(schema, { email: 'a@b.example', password: '0123456789' })).toEqual({
+      ok: true,
+      data: { email: 'a@b.example', password: '0123456789' },
+    });
   });
   it('returns one message per field', () => {
-    expect(validateForm(schema, { email: 'nope', password: 'short' })).toEqual({ ok: false, errors: { email: 'Enter an e-mail address.', password: 'Use at least 10 characters.' } });
+    expect(validateForm(schema, { email: 'nope', password: 'short' })).toEqual({
+      ok: false,
+      errors: { email: 'Enter an e-mail address.', password: 'Use at least 10 characters.' },
+    });
   });
 });
 
@@ -76,14 +89,19 @@ describe('splitLinks', () => {
     ]);
   });
   it('keeps query strings', () => {
-    expect(splitLinks('https://x.example/reset-password?token=a_b-c')).toEqual([{ kind: 'link', value: 'https://x.example/reset-password?token=a_b-c' }]);
+    expect(splitLinks('https://x.example/reset-password?token=a_b-c')).toEqual([
+      { kind: 'link', value: 'https://x.example/reset-password?token=a_b-c' },
+    ]);
   });
-  it('returns plain text untouched', () => expect(splitLinks('no links')).toEqual([{ kind: 'text', value: 'no links' }]));
+  it('returns plain text untouched', () =>
+    expect(splitLinks('no links')).toEqual([{ kind: 'text', value: 'no links' }]));
 });
 
 describe('inAppPath', () => {
   it('gives the path for same-origin links only', () => {
-    expect(inAppPath('http://localhost:3000/reset-password?token=t', 'http://localhost:3000')).toBe('/reset-password?token=t');
+    expect(inAppPath('http://localhost:3000/reset-password?token=t', 'http://localhost:3000')).toBe(
+      '/reset-password?token=t',
+    );
     expect(inAppPath('https://elsewhere.example/x', 'http://localhost:3000')).toBeNull();
     expect(inAppPath('not a url', 'http://localhost:3000')).toBeNull();
   });

@@ -9,7 +9,13 @@ function reply(status: number, body: string, headers: Record<string, string> = {
 
 describe('errorFromReply', () => {
   it('turns the error envelope into an ApiError with code, message and details', () => {
-    const body = JSON.stringify({ error: { code: 'validation_failed', message: 'email: Invalid email address', details: { issues: [{ path: ['body', 'email'], message: 'Invalid email address' }] } } });
+    const body = JSON.stringify({
+      error: {
+        code: 'validation_failed',
+        message: 'email: Invalid email address',
+        details: { issues: [{ path: ['body', 'email'], message: 'Invalid email address' }] },
+      },
+    });
     const error = errorFromReply(400, null, body);
     expect(error).toBeInstanceOf(ApiError);
     expect(error.status).toBe(400);
@@ -26,7 +32,9 @@ describe('errorFromReply', () => {
   });
 
   it('keeps a wait the server already put in details', () => {
-    const body = JSON.stringify({ error: { code: 'rate_limited', message: 'Slow down.', details: { retryAfterSeconds: 7 } } });
+    const body = JSON.stringify({
+      error: { code: 'rate_limited', message: 'Slow down.', details: { retryAfterSeconds: 7 } },
+    });
     expect(errorFromReply(429, '42', body).details.retryAfterSeconds).toBe(7);
   });
 
@@ -71,7 +79,9 @@ describe('request', () => {
   afterEach(() => vi.unstubAllGlobals());
 
   it('sends JSON same-origin under /api/v1 and parses the reply with the schema', async () => {
-    fetchMock.mockResolvedValueOnce(reply(200, JSON.stringify({ n: 3, extra: true }), { 'Content-Type': 'application/json' }));
+    fetchMock.mockResolvedValueOnce(
+      reply(200, JSON.stringify({ n: 3, extra: true }), { 'Content-Type': 'application/json' }),
+    );
     const result = await http.post('/things', { a: 1 }, { schema: z.object({ n: z.number() }) });
     expect(result).toEqual({ n: 3 });
     const [url, init] = fetchMock.mock.calls[0]!;
@@ -94,13 +104,26 @@ describe('request', () => {
   });
 
   it('rejects with the envelope as ApiError', async () => {
-    fetchMock.mockResolvedValueOnce(reply(401, JSON.stringify({ error: { code: 'invalid_credentials', message: 'E-mail or password is wrong.' } })));
-    await expect(http.post('/session', {})).rejects.toMatchObject({ status: 401, code: 'invalid_credentials', message: 'E-mail or password is wrong.' });
+    fetchMock.mockResolvedValueOnce(
+      reply(401, JSON.stringify({ error: { code: 'invalid_credentials', message: 'E-mail or password is wrong.' } })),
+    );
+    await expect(http.post('/session', {})).rejects.toMatchObject({
+      status: 401,
+      code: 'invalid_credentials',
+      message: 'E-mail or password is wrong.',
+    });
   });
 
   it('reads Retry-After from the response headers', async () => {
-    fetchMock.mockResolvedValueOnce(reply(429, JSON.stringify({ error: { code: 'rate_limited', message: 'Too many attempts.' } }), { 'Retry-After': '90' }));
-    await expect(http.post('/session', {})).rejects.toMatchObject({ code: 'rate_limited', details: { retryAfterSeconds: 90 } });
+    fetchMock.mockResolvedValueOnce(
+      reply(429, JSON.stringify({ error: { code: 'rate_limited', message: 'Too many attempts.' } }), {
+        'Retry-After': '90',
+      }),
+    );
+    await expect(http.post('/session', {})).rejects.toMatchObject({
+      code: 'rate_limited',
+      details: { retryAfterSeconds: 90 },
+    });
   });
 
   it('turns a network failure into ApiError status 0', async () => {
@@ -118,12 +141,17 @@ describe('request', () => {
 
   it('rejects a 200 reply that is not JSON', async () => {
     fetchMock.mockResolvedValueOnce(reply(200, '<!doctype html><title>app</title>'));
-    await expect(http.get('/session', { schema: z.object({}) })).rejects.toMatchObject({ code: 'unexpected_reply', message: expect.stringMatching(/not JSON/) });
+    await expect(http.get('/session', { schema: z.object({}) })).rejects.toMatchObject({
+      code: 'unexpected_reply',
+      message: expect.stringMatching(/not JSON/),
+    });
   });
 
   it('rejects a reply of the wrong shape, naming where', async () => {
     fetchMock.mockResolvedValueOnce(reply(200, JSON.stringify({ user: 5 })));
-    const error = (await http.get('/session', { schema: z.object({ user: z.string() }) }).catch((e: unknown) => e)) as ApiError;
+    const error = (await http
+      .get('/session', { schema: z.object({ user: z.string() }) })
+      .catch((e: unknown) => e)) as ApiError;
     expect(error.code).toBe('unexpected_reply');
     expect(error.message).toContain('user');
   });

@@ -4,7 +4,8 @@ import { navItems, visibleNavItems } from '@/components/layout/nav-items';
 
 const team = '11111111-1111-4111-8111-111111111111';
 const person = { id: '33333333-3333-4333-8333-333333333333', email: 'p@lab.example', displayName: 'P' };
-const keys = (session: SessionInfo, current: string | null) => visibleNavItems(navItems, session, current).map((i) => i.key);
+const keys = (session: SessionInfo, current: string | null) =>
+  visibleNavItems(navItems, session, current).map((i) => i.key);
 
 describe('visibleNavItems', () => {
   it('shows only the workbench to anonymous visitors', () => {
@@ -12,7 +13,11 @@ describe('visibleNavItems', () => {
   });
 
   it('shows team areas to a viewer, linked to the current team, but no Admin', () => {
-    const viewer: SessionInfo = { user: { ...person, siteRoles: [] }, teams: [{ id: team, name: 'T', slug: 't', role: 'viewer' }], via: 'session' };
+    const viewer: SessionInfo = {
+      user: { ...person, siteRoles: [] },
+      teams: [{ id: team, name: 'T', slug: 't', role: 'viewer' }],
+      via: 'session',
+    };
     const items = visibleNavItems(navItems, viewer, team);
     expect(items.map((i) => i.key)).toEqual(['workbench', 'notes', 'members']);
     expect(items.find((i) => i.key === 'notes')?.params).toEqual({ teamId: team });
@@ -25,12 +30,20 @@ describe('visibleNavItems', () => {
   });
 
   it('hides Admin from a curator', () => {
-    const curator: SessionInfo = { user: { ...person, siteRoles: ['curator'] }, teams: [{ id: team, name: 'T', slug: 't', role: 'member' }], via: 'session' };
+    const curator: SessionInfo = {
+      user: { ...person, siteRoles: ['curator'] },
+      teams: [{ id: team, name: 'T', slug: 't', role: 'member' }],
+      via: 'session',
+    };
     expect(keys(curator, team)).toEqual(['workbench', 'notes', 'members']);
   });
 
   it('drops team areas when the current team is not one of the user’s', () => {
-    const viewer: SessionInfo = { user: { ...person, siteRoles: [] }, teams: [{ id: team, name: 'T', slug: 't', role: 'viewer' }], via: 'session' };
+    const viewer: SessionInfo = {
+      user: { ...person, siteRoles: [] },
+      teams: [{ id: team, name: 'T', slug: 't', role: 'viewer' }],
+      via: 'session',
+    };
     expect(keys(viewer, '99999999-9999-4999-8999-999999999999')).toEqual(['workbench']);
   });
 });

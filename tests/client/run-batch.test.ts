@@ -5,7 +5,14 @@ import { runBatch } from '@/lib/run-batch';
 import { batchLines, equationLines } from '@/lib/batch-lines';
 
 // The equations are textbook staples (combustion of propane and of methane; water from its elements) — common practice, no source.
-const input = ['C3H8 + O2 -> CO2 + H2O', '', '# skipped', 'H2 + Xx2 -> H2O', 'CH4 + O2 -> CO2 + H2O', 'H2 + O2 -> H2O'].join('\n');
+const input = [
+  'C3H8 + O2 -> CO2 + H2O',
+  '',
+  '# skipped',
+  'H2 + Xx2 -> H2O',
+  'CH4 + O2 -> CO2 + H2O',
+  'H2 + O2 -> H2O',
+].join('\n');
 const lines = equationLines(batchLines(input, 'text'));
 
 describe('runBatch', () => {

@@ -67,7 +67,11 @@ describe('useEquationInput', () => {
     options.value = { fixed: { '0': '1' }, normaliseTo: 2 };
     await nextTick();
     await vi.advanceTimersByTimeAsync(400);
-    expect(JSON.parse(String(fetchMock.mock.calls.at(-1)![1]?.body))).toEqual({ equation: 'H2 + O2 -> H2O', fixed: { '0': '1' }, normaliseTo: 2 });
+    expect(JSON.parse(String(fetchMock.mock.calls.at(-1)![1]?.body))).toEqual({
+      equation: 'H2 + O2 -> H2O',
+      fixed: { '0': '1' },
+      normaliseTo: 2,
+    });
     stop();
   });
 
@@ -82,7 +86,13 @@ describe('useEquationInput', () => {
   });
 
   it('shows a refused option with its field', async () => {
-    const envelope = { error: { code: 'validation_failed', message: 'There is no term 7.', details: { issues: [{ path: ['body', 'normaliseTo'], message: 'There is no term 7.' }] } } };
+    const envelope = {
+      error: {
+        code: 'validation_failed',
+        message: 'There is no term 7.',
+        details: { issues: [{ path: ['body', 'normaliseTo'], message: 'There is no term 7.' }] },
+      },
+    };
     fetchMock.mockResolvedValue(new Response(JSON.stringify(envelope), { status: 400 }));
     const { input, stop } = setUp('H2 + O2 -> H2O');
     await vi.advanceTimersByTimeAsync(400);

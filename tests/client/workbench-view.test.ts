@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { balanceEquationText, formatEquation, parseEquation } from '@shared/chemistry/index';
-import { balanceRows, displayedEquation, formatWithUncertainty, molarMassRows, readFactor, smallestWholeNumbers, statusSummary } from '@/lib/workbench-view';
+import {
+  balanceRows,
+  displayedEquation,
+  formatWithUncertainty,
+  molarMassRows,
+  readFactor,
+  smallestWholeNumbers,
+  statusSummary,
+} from '@/lib/workbench-view';
 
 describe('readFactor', () => {
   it('accepts exact positive numbers and writes them canonically', () => {
@@ -33,18 +41,28 @@ describe('displayedEquation', () => {
 
   it('keeps an equilibrium arrow', () => {
     const eq = balanceEquationText({ equation: 'N2 + H2 <=> NH3' });
-    expect(formatEquation(displayedEquation(eq, { reversed: false, factor: '1' }, true)!, 'text')).toBe('N2 + 3 H2 <=> 2 NH3');
+    expect(formatEquation(displayedEquation(eq, { reversed: false, factor: '1' }, true)!, 'text')).toBe(
+      'N2 + 3 H2 <=> 2 NH3',
+    );
   });
 
   it('shows nothing for several balancings or none', () => {
-    expect(displayedEquation(balanceEquationText({ equation: 'H2 + O2 -> H2O + H2O2' }), { reversed: false, factor: '1' })).toBeNull();
+    expect(
+      displayedEquation(balanceEquationText({ equation: 'H2 + O2 -> H2O + H2O2' }), { reversed: false, factor: '1' }),
+    ).toBeNull();
   });
 });
 
 describe('statusSummary', () => {
   it('names each outcome', () => {
-    expect(statusSummary(balanceEquationText({ equation: '2 H2 + O2 -> 2 H2O' }))).toMatchObject({ tone: 'success', label: 'Balanced as written' });
-    expect(statusSummary(balanceEquationText({ equation: 'H2 + O2 -> H2O + H2O2' }))).toMatchObject({ tone: 'warning', label: 'Several balancings (2 independent)' });
+    expect(statusSummary(balanceEquationText({ equation: '2 H2 + O2 -> 2 H2O' }))).toMatchObject({
+      tone: 'success',
+      label: 'Balanced as written',
+    });
+    expect(statusSummary(balanceEquationText({ equation: 'H2 + O2 -> H2O + H2O2' }))).toMatchObject({
+      tone: 'warning',
+      label: 'Several balancings (2 independent)',
+    });
     const impossible = statusSummary(balanceEquationText({ equation: 'H2 -> O2' }));
     expect(impossible.tone).toBe('error');
     expect(impossible.detail.length).toBeGreaterThan(0);

@@ -34,7 +34,15 @@ export async function openBrowser(): Promise<Browser> {
   const context = await chromium.launchPersistentContext(profile, {
     executablePath,
     headless: true,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
     viewport: { width: 1360, height: 900 },
     baseURL: baseUrl,
   });

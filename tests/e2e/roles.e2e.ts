@@ -71,7 +71,9 @@ describe('signing in and what each role sees', () => {
     await page.getByTestId('note-new').click();
     const title = `Reflux trial ${Date.now()}`;
     await page.locator('[data-testid="note-title"] input').fill(title);
-    await page.locator('[data-testid="note-body"] textarea').fill('Hold the jacket at 65 °C; log the exotherm every minute.');
+    await page
+      .locator('[data-testid="note-body"] textarea')
+      .fill('Hold the jacket at 65 °C; log the exotherm every minute.');
     await page.getByTestId('note-save').click();
     const card = page.getByTestId('note-card').filter({ hasText: title });
     await card.waitFor();

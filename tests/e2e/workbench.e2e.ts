@@ -20,7 +20,11 @@ describe('reaction workbench (signed out)', () => {
     await expect.poll(() => equation.textContent()).toBe('C3H8 + 5 O2 → 3 CO2 + 4 H2O');
     expect(await equation.innerHTML()).toContain('C<sub>3</sub>H<sub>8</sub>');
     const table = page.getByTestId('element-table').first();
-    const rows = await table.locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('th, td')].map((c) => c.textContent?.trim()).join(' ')));
+    const rows = await table
+      .locator('tbody tr')
+      .evaluateAll((trs) =>
+        trs.map((tr) => [...tr.querySelectorAll('th, td')].map((c) => c.textContent?.trim()).join(' ')),
+      );
     expect(rows).toEqual(['C 3 3 =', 'H 8 8 =', 'O 10 10 =']);
     await screenshot(page, 'workbench-propane');
   });
@@ -72,12 +76,16 @@ describe('reaction workbench (signed out)', () => {
 
   it('balances a pasted batch and reports the bad line with its column', async () => {
     const { page } = browser;
-    await page.locator('[data-testid="batch-input"] textarea').fill(['CH4 + O2 -> CO2 + H2O', '', 'H2 + Xx2 -> H2O', 'Fe2O3 + CO -> Fe + CO2'].join('\n'));
+    await page
+      .locator('[data-testid="batch-input"] textarea')
+      .fill(['CH4 + O2 -> CO2 + H2O', '', 'H2 + Xx2 -> H2O', 'Fe2O3 + CO -> Fe + CO2'].join('\n'));
     await page.getByTestId('batch-run').click();
     await page.getByTestId('batch-summary').waitFor();
     const rows = page.getByTestId('batch-row');
     await expect.poll(() => rows.count()).toBe(3);
-    const cells = await rows.evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((c) => c.textContent?.trim() ?? '')));
+    const cells = await rows.evaluateAll((trs) =>
+      trs.map((tr) => [...tr.querySelectorAll('td')].map((c) => c.textContent?.trim() ?? '')),
+    );
     // Methane combustion and haematite reduction by CO: textbook balancings (common practice, no source).
     expect(cells[0]).toEqual(['1', 'CH4 + O2 -> CO2 + H2O', 'balanced', 'CH4 + 2 O2 → CO2 + 2 H2O']);
     expect(cells[1]!.slice(0, 3)).toEqual(['3', 'H2 + Xx2 -> H2O', 'unreadable']);

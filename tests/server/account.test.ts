@@ -87,11 +87,15 @@ describe('POST /api/v1/account/password', () => {
   it('needs the current password, then ends the other sessions but keeps this one', async () => {
     const here = await t.signIn('member');
     const elsewhere = await t.signIn('member');
-    const wrong = await here.post('/api/v1/account/password').send({ currentPassword: 'nope', newPassword: 'a-brand-new-password' });
+    const wrong = await here
+      .post('/api/v1/account/password')
+      .send({ currentPassword: 'nope', newPassword: 'a-brand-new-password' });
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.details.issues[0].path).toEqual(['body', 'currentPassword']);
 
-    const ok = await here.post('/api/v1/account/password').send({ currentPassword: DEMO_PASSWORD, newPassword: 'a-brand-new-password' });
+    const ok = await here
+      .post('/api/v1/account/password')
+      .send({ currentPassword: DEMO_PASSWORD, newPassword: 'a-brand-new-password' });
     expect(ok.status).toBe(204);
     expect((await here.get('/api/v1/session')).body.user.email).toBe(demoUsers.member);
     expect((await elsewhere.get('/api/v1/session')).body.user).toBeNull();

@@ -14,7 +14,11 @@ describe('site administration', () => {
     const res = await sam.get('/api/v1/admin/users');
     expect(res.status).toBe(200);
     const cora = res.body.users.find((u: { email: string }) => u.email === demoUsers.curator);
-    expect(cora).toMatchObject({ siteRoles: ['curator'], disabled: false, teams: [{ name: 'Kestrel Bay Process Lab', role: 'member' }] });
+    expect(cora).toMatchObject({
+      siteRoles: ['curator'],
+      disabled: false,
+      teams: [{ name: 'Kestrel Bay Process Lab', role: 'member' }],
+    });
     expect(JSON.stringify(res.body)).not.toMatch(/argon2/);
   });
 
@@ -35,17 +39,23 @@ describe('site administration', () => {
     const res = await sam.patch(`/api/v1/admin/users/${t.ids.users.member}`).send({ disabled: true });
     expect(res.status).toBe(200);
     expect((await milo.get('/api/v1/session')).body.user).toBeNull();
-    expect((await t.anon().post('/api/v1/session').send({ email: demoUsers.member, password: DEMO_PASSWORD })).status).toBe(401);
+    expect(
+      (await t.anon().post('/api/v1/session').send({ email: demoUsers.member, password: DEMO_PASSWORD })).status,
+    ).toBe(401);
     const actions = (await sam.get('/api/v1/admin/audit-log')).body.events.map((e: { action: string }) => e.action);
     expect(actions).toContain('user.disabled');
   });
 
   it('creates a team whose first admin is invited by e-mail, readable in the outbox', async () => {
     const sam = await t.signIn('site_admin');
-    const res = await sam.post('/api/v1/admin/teams').send({ name: 'Kestrel Bay Process Lab', adminEmail: 'Owen.Owner@Example.org' });
+    const res = await sam
+      .post('/api/v1/admin/teams')
+      .send({ name: 'Kestrel Bay Process Lab', adminEmail: 'Owen.Owner@Example.org' });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ slug: 'kestrel-bay-process-lab', memberCount: 0 });
-    const again = await sam.post('/api/v1/admin/teams').send({ name: 'Kestrel Bay Process Lab', adminEmail: 'x@example.org' });
+    const again = await sam
+      .post('/api/v1/admin/teams')
+      .send({ name: 'Kestrel Bay Process Lab', adminEmail: 'x@example.org' });
     expect(again.body.slug).toBe('kestrel-bay-process-lab-2');
 
     const outbox = await sam.get('/api/v1/admin/outbox');
@@ -57,11 +67,20 @@ describe('site administration', () => {
     const preview = await t.anon().get(`/api/v1/invitations/${token}`);
     expect(preview.body).toMatchObject({ role: 'team_admin', email: 'owen.owner@example.org' });
     const teams = await sam.get('/api/v1/admin/teams');
-    expect(teams.body.teams.map((x: { slug: string }) => x.slug)).toEqual(['kestrel-bay', 'kestrel-bay-process-lab', 'kestrel-bay-process-lab-2', 'larchmont']);
+    expect(teams.body.teams.map((x: { slug: string }) => x.slug)).toEqual([
+      'kestrel-bay',
+      'kestrel-bay-process-lab',
+      'kestrel-bay-process-lab-2',
+      'larchmont',
+    ]);
   });
 
   it('pages the audit log with limit and before', async () => {
-    for (let i = 0; i < 3; i++) await t.anon().post('/api/v1/session').send({ email: demoUsers.viewer, password: `wrong-${i}` });
+    for (let i = 0; i < 3; i++)
+      await t
+        .anon()
+        .post('/api/v1/session')
+        .send({ email: demoUsers.viewer, password: `wrong-${i}` });
     const sam = await t.signIn('site_admin');
     const page = await sam.get('/api/v1/admin/audit-log').query({ limit: 2 });
     expect(page.body.events).toHaveLength(2);

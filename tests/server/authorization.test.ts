@@ -109,14 +109,19 @@ describe('route access table', () => {
   });
 
   it('matches the access each route declares', () => {
-    for (const route of routes) expect({ route: routeKey(route), access: route.access }).toEqual({ route: routeKey(route), access: expectedAccess[routeKey(route)] });
+    for (const route of routes)
+      expect({ route: routeKey(route), access: route.access }).toEqual({
+        route: routeKey(route),
+        access: expectedAccess[routeKey(route)],
+      });
   });
 });
 
 describe('every route, for every kind of caller', () => {
   async function agentFor(caller: Caller): Promise<{ agent: TestAgent; headers: Record<string, string> }> {
     if (caller.name === 'anonymous') return { agent: t.anon(), headers: {} };
-    if (caller.name === 'member_token') return { agent: t.anon(), headers: { Authorization: `Bearer ${await t.tokenFor('member')}` } };
+    if (caller.name === 'member_token')
+      return { agent: t.anon(), headers: { Authorization: `Bearer ${await t.tokenFor('member')}` } };
     return { agent: await t.signIn(caller.name as Parameters<TestApp['signIn']>[0]), headers: {} };
   }
 
@@ -124,7 +129,9 @@ describe('every route, for every kind of caller', () => {
     it(`gives ${caller.name} exactly the declared access`, async () => {
       const { agent, headers } = await agentFor(caller);
       // Signing out would end the caller's session for the rest of the walk: do it last.
-      const ordered = [...routes].sort((a, b) => Number(routeKey(a) === 'DELETE /api/v1/session') - Number(routeKey(b) === 'DELETE /api/v1/session'));
+      const ordered = [...routes].sort(
+        (a, b) => Number(routeKey(a) === 'DELETE /api/v1/session') - Number(routeKey(b) === 'DELETE /api/v1/session'),
+      );
       const mismatches: string[] = [];
       for (const route of ordered) {
         // An empty body: allowed callers get past the access check and stop at validation (400), so nothing changes.
@@ -132,10 +139,11 @@ describe('every route, for every kind of caller', () => {
         if (route.method !== 'get' && route.method !== 'delete') req = req.send({});
         const res = await req;
         const allowed = mayCall(expectedAccess[routeKey(route)]!, caller);
-        const ok = allowed
-          ? res.status !== 401 && res.status !== 403
-          : res.status === (caller.signedIn ? 403 : 401);
-        if (!ok) mismatches.push(`${routeKey(route)} → ${res.status} ${JSON.stringify(res.body?.error ?? {})} (expected ${allowed ? 'allowed' : 'denied'})`);
+        const ok = allowed ? res.status !== 401 && res.status !== 403 : res.status === (caller.signedIn ? 403 : 401);
+        if (!ok)
+          mismatches.push(
+            `${routeKey(route)} → ${res.status} ${JSON.stringify(res.body?.error ?? {})} (expected ${allowed ? 'allowed' : 'denied'})`,
+          );
         if (res.status >= 500) mismatches.push(`${routeKey(route)} → server error ${JSON.stringify(res.body)}`);
       }
       expect(mismatches).toEqual([]);

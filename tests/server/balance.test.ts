@@ -39,7 +39,9 @@ describe('POST /api/v1/balance', () => {
   });
 
   it('answers a term index out of range with 400 naming body.fixed.<index>', async () => {
-    const res = await request(t.url).post('/api/v1/balance').send({ equation: 'CH4 + O2 -> CO2 + H2O', fixed: { '9': '1' } });
+    const res = await request(t.url)
+      .post('/api/v1/balance')
+      .send({ equation: 'CH4 + O2 -> CO2 + H2O', fixed: { '9': '1' } });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('validation_failed');
     expect(res.body.error.details.issues[0].path).toEqual(['body', 'fixed', '9']);
@@ -71,7 +73,8 @@ describe('calculation rate limit', () => {
   it('answers 429 with Retry-After once an address passes its per-minute allowance', async () => {
     t.app.locals.deps.limits.reset();
     const statuses: number[] = [];
-    for (let i = 0; i < 40; i++) statuses.push((await request(t.url).post('/api/v1/balance').send({ equation: 'H2 + O2 -> H2O' })).status);
+    for (let i = 0; i < 40; i++)
+      statuses.push((await request(t.url).post('/api/v1/balance').send({ equation: 'H2 + O2 -> H2O' })).status);
     expect(statuses.every((s) => s === 200)).toBe(true);
     const last = await request(t.url).post('/api/v1/balance').send({ equation: 'H2 + O2 -> H2O' });
     expect(last.status).toBe(429);

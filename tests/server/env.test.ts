@@ -4,7 +4,13 @@ import { configFromEnv, EnvError, readEnv } from '../../server/env';
 describe('readEnv', () => {
   it('fills the documented defaults', () => {
     const env = readEnv({});
-    expect(env).toMatchObject({ PORT: 3000, DATA_DIR: './data', SMTP_PORT: 2525, CALC_RATE_LIMIT_PER_MINUTE: 600, SESSION_TTL_DAYS: 30 });
+    expect(env).toMatchObject({
+      PORT: 3000,
+      DATA_DIR: './data',
+      SMTP_PORT: 2525,
+      CALC_RATE_LIMIT_PER_MINUTE: 600,
+      SESSION_TTL_DAYS: 30,
+    });
     expect(configFromEnv(env).publicUrl).toBe('http://localhost:3000');
   });
 
@@ -19,7 +25,9 @@ describe('readEnv', () => {
   });
 
   it('reads trust proxy, booleans and a public URL', () => {
-    const config = configFromEnv(readEnv({ TRUST_PROXY: '1', SMTP_SECURE: 'true', PUBLIC_URL: 'https://tl.example/', PORT: '0' }));
+    const config = configFromEnv(
+      readEnv({ TRUST_PROXY: '1', SMTP_SECURE: 'true', PUBLIC_URL: 'https://tl.example/', PORT: '0' }),
+    );
     expect(config.trustProxy).toBe(1);
     expect(config.publicUrl).toBe('https://tl.example');
     expect(readEnv({ SMTP_SECURE: 'yes' }).SMTP_SECURE).toBe(true);

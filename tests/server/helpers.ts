@@ -107,7 +107,10 @@ async function readIds(open: OpenDatabase): Promise<DemoIds> {
   const user = (email: string) => userRows.find((u) => u.email === email)?.id ?? '';
   return {
     teams: { kestrel: team('kestrel-bay'), larchmont: team('larchmont') },
-    users: Object.fromEntries(Object.entries(demoUsers).map(([role, email]) => [role, user(email)])) as Record<DemoRole, string>,
+    users: Object.fromEntries(Object.entries(demoUsers).map(([role, email]) => [role, user(email)])) as Record<
+      DemoRole,
+      string
+    >,
   };
 }
 
@@ -120,7 +123,10 @@ export async function startTestApp(
 ): Promise<TestApp> {
   const open = options.open ?? (await openTestDatabase());
   const mail = await startFakeSmtp({ port: 0 });
-  const mailer = createMailer({ host: mail.host, port: mail.port, secure: false, from: 'Thermoledger <no-reply@thermoledger.test>' }, mail);
+  const mailer = createMailer(
+    { host: mail.host, port: mail.port, secure: false, from: 'Thermoledger <no-reply@thermoledger.test>' },
+    mail,
+  );
   const config = testConfig(options.config);
   const app = createApp({ db: open.db, mailer, config, clientDir: null, extraRoutes: options.extraRoutes ?? [] });
   const server: Server = await new Promise((resolve) => {
@@ -170,8 +176,19 @@ export async function startTestApp(
 
 /** The last captured message to `to`, or an error listing what did arrive. */
 export function lastMailTo(mail: FakeSmtp, to: string) {
-  const found = mail.list().filter((m) => m.to.includes(to)).at(-1);
-  if (!found) throw new Error(`no mail to ${to}; got: ${mail.list().map((m) => m.to.join(',')).join('; ') || 'none'}`);
+  const found = mail
+    .list()
+    .filter((m) => m.to.includes(to))
+    .at(-1);
+  if (!found)
+    throw new Error(
+      `no mail to ${to}; got: ${
+        mail
+          .list()
+          .map((m) => m.to.join(','))
+          .join('; ') || 'none'
+      }`,
+    );
   return found;
 }
 

@@ -23,7 +23,11 @@ describe('error envelope', () => {
   });
 
   it('answers malformed JSON with 400 bad_request', async () => {
-    const res = await t.anon().post('/api/v1/session').set('Content-Type', 'application/json').send('{"email": "a@b.example",');
+    const res = await t
+      .anon()
+      .post('/api/v1/session')
+      .set('Content-Type', 'application/json')
+      .send('{"email": "a@b.example",');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('bad_request');
     expect(res.body.error.message).toMatch(/not valid JSON/);
@@ -38,9 +42,14 @@ describe('error envelope', () => {
 
   it('accepts a body just under the limit (the limit is 1 MB, not the 100 kB default)', async () => {
     const agent = await t.signIn('member');
-    const res = await agent.post(`/api/v1/teams/${t.ids.teams.kestrel}/notes`).send({ title: 'Long', body: 'z'.repeat(19_000) + ' '.repeat(0) });
+    const res = await agent
+      .post(`/api/v1/teams/${t.ids.teams.kestrel}/notes`)
+      .send({ title: 'Long', body: 'z'.repeat(19_000) + ' '.repeat(0) });
     expect(res.status).toBe(201);
-    const nearLimit = await t.anon().post('/api/v1/password-resets').send({ email: 'a@b.example', pad: 'p'.repeat(900_000) });
+    const nearLimit = await t
+      .anon()
+      .post('/api/v1/password-resets')
+      .send({ email: 'a@b.example', pad: 'p'.repeat(900_000) });
     expect(nearLimit.status).toBe(202);
   });
 
@@ -57,12 +66,16 @@ describe('error envelope', () => {
     const res = await agent.post(`/api/v1/teams/${t.ids.teams.kestrel}/notes`).send({ body: 'no title' });
     expect(res.status).toBe(400);
     expect(res.body.error).toMatchObject({ code: 'validation_failed', message: 'Check body.title: is required.' });
-    expect(res.body.error.details.issues).toEqual([{ path: ['body', 'title'], message: 'is required.', code: 'invalid_type' }]);
+    expect(res.body.error.details.issues).toEqual([
+      { path: ['body', 'title'], message: 'is required.', code: 'invalid_type' },
+    ]);
   });
 
   it('reports a bad path parameter as a validation error on params', async () => {
     const agent = await t.signIn('member');
-    const res = await agent.patch(`/api/v1/teams/${t.ids.teams.kestrel}/notes/not-a-uuid`).send({ title: 'a', body: '' });
+    const res = await agent
+      .patch(`/api/v1/teams/${t.ids.teams.kestrel}/notes/not-a-uuid`)
+      .send({ title: 'a', body: '' });
     expect(res.status).toBe(400);
     expect(res.body.error.details.issues[0].path).toEqual(['params', 'noteId']);
   });
@@ -107,7 +120,10 @@ describe('CSRF guard', () => {
     const cookie = (agent as unknown as { jar: { getCookie(n: string, o: object): { toValueString(): string } } }).jar
       .getCookie('tl_session', { domain: '127.0.0.1', path: '/', secure: false, script: false })
       .toValueString();
-    const res = await request(t.url).post(`/api/v1/teams/${t.ids.teams.kestrel}/notes`).set('Cookie', cookie).send({ title: 'x', body: '' });
+    const res = await request(t.url)
+      .post(`/api/v1/teams/${t.ids.teams.kestrel}/notes`)
+      .set('Cookie', cookie)
+      .send({ title: 'x', body: '' });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('csrf_rejected');
     const sameOrigin = await request(t.url)
@@ -136,7 +152,10 @@ describe('CSRF guard', () => {
 
   it('accepts the configured public URL as an origin (behind a proxy the Host may differ)', async () => {
     const agent = await t.signIn('member');
-    const res = await agent.post(`/api/v1/teams/${t.ids.teams.kestrel}/notes`).set('Origin', t.config.publicUrl).send({ title: 'ok', body: '' });
+    const res = await agent
+      .post(`/api/v1/teams/${t.ids.teams.kestrel}/notes`)
+      .set('Origin', t.config.publicUrl)
+      .send({ title: 'ok', body: '' });
     expect(res.status).toBe(201);
   });
 });
@@ -162,12 +181,16 @@ describe('GET /api/v1/openapi.json', () => {
     expect(res.body.openapi).toBe('3.1.0');
     const documented = new Set<string>();
     for (const [path, item] of Object.entries(res.body.paths as Record<string, Record<string, unknown>>)) {
-      for (const method of Object.keys(item)) documented.add(`${method.toUpperCase()} ${path.replace(/\{(\w+)\}/g, ':$1')}`);
+      for (const method of Object.keys(item))
+        documented.add(`${method.toUpperCase()} ${path.replace(/\{(\w+)\}/g, ':$1')}`);
     }
     const registered = t.app.locals.routes.map(routeKey);
     expect([...documented].sort()).toEqual([...registered].sort());
     expect(res.body.paths['/api/v1/teams/{teamId}/notes'].post['x-access']).toEqual({ team: 'member' });
-    expect(res.body.paths['/api/v1/session'].post.requestBody.content['application/json'].schema.required).toEqual(['email', 'password']);
+    expect(res.body.paths['/api/v1/session'].post.requestBody.content['application/json'].schema.required).toEqual([
+      'email',
+      'password',
+    ]);
   });
 });
 

@@ -5,7 +5,8 @@ import { parseMessage } from '../../server/mail/parse-message';
 
 describe('parseMessage', () => {
   it('decodes quoted-printable soft breaks and UTF-8 bytes (RFC 2045 §6.7)', () => {
-    const raw = 'Subject: =?UTF-8?Q?R=C3=A9sum=C3=A9?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\nhttp://x.example/a=\r\nbc?t=3D1 caf=C3=A9\r\n';
+    const raw =
+      'Subject: =?UTF-8?Q?R=C3=A9sum=C3=A9?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\nhttp://x.example/a=\r\nbc?t=3D1 caf=C3=A9\r\n';
     expect(parseMessage(raw)).toMatchObject({ subject: 'Résumé', text: 'http://x.example/abc?t=1 café' });
   });
 
@@ -23,11 +24,18 @@ describe('fake SMTP server with nodemailer', () => {
   afterAll(async () => smtp?.close());
 
   it('captures what nodemailer sends, long links intact, keeping only the last messages', async () => {
-    const mailer = createMailer({ host: smtp.host, port: smtp.port, secure: false, from: 'TL <no-reply@tl.test>' }, smtp);
+    const mailer = createMailer(
+      { host: smtp.host, port: smtp.port, secure: false, from: 'TL <no-reply@tl.test>' },
+      smtp,
+    );
     const link = `http://localhost:3000/reset-password?token=${'A1b2_C3d4-'.repeat(12)}`;
     await mailer.send({ to: 'ana@example.org', subject: 'Réinitialiser — test', text: `Open:\n${link}\nBye ✓` });
     const [message] = smtp.list();
-    expect(message).toMatchObject({ from: 'no-reply@tl.test', to: ['ana@example.org'], subject: 'Réinitialiser — test' });
+    expect(message).toMatchObject({
+      from: 'no-reply@tl.test',
+      to: ['ana@example.org'],
+      subject: 'Réinitialiser — test',
+    });
     expect(message!.text.split('\n')).toContain(link);
     expect(message!.text).toContain('Bye ✓');
     for (let i = 0; i < 4; i++) await mailer.send({ to: `n${i}@example.org`, subject: `n${i}`, text: 'x' });

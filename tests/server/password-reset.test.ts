@@ -21,20 +21,35 @@ describe('password reset by e-mail', () => {
   it('sets a new password from the e-mailed link and ends every session of the account', async () => {
     const oldSession = await t.signIn('member');
     const token = await requestReset(demoUsers.member);
-    const done = await t.anon().post('/api/v1/password-resets/complete').send({ token, password: 'a-brand-new-password' });
+    const done = await t
+      .anon()
+      .post('/api/v1/password-resets/complete')
+      .send({ token, password: 'a-brand-new-password' });
     expect(done.status).toBe(204);
 
     expect((await oldSession.get('/api/v1/session')).body.user).toBeNull();
-    const oldPassword = await t.anon().post('/api/v1/session').send({ email: demoUsers.member, password: DEMO_PASSWORD });
+    const oldPassword = await t
+      .anon()
+      .post('/api/v1/session')
+      .send({ email: demoUsers.member, password: DEMO_PASSWORD });
     expect(oldPassword.status).toBe(401);
-    const newPassword = await t.anon().post('/api/v1/session').send({ email: demoUsers.member, password: 'a-brand-new-password' });
+    const newPassword = await t
+      .anon()
+      .post('/api/v1/session')
+      .send({ email: demoUsers.member, password: 'a-brand-new-password' });
     expect(newPassword.status).toBe(200);
   });
 
   it('works once only (410 the second time)', async () => {
     const token = await requestReset(demoUsers.member);
-    expect((await t.anon().post('/api/v1/password-resets/complete').send({ token, password: 'a-brand-new-password' })).status).toBe(204);
-    const again = await t.anon().post('/api/v1/password-resets/complete').send({ token, password: 'another-new-password' });
+    expect(
+      (await t.anon().post('/api/v1/password-resets/complete').send({ token, password: 'a-brand-new-password' }))
+        .status,
+    ).toBe(204);
+    const again = await t
+      .anon()
+      .post('/api/v1/password-resets/complete')
+      .send({ token, password: 'another-new-password' });
     expect(again.status).toBe(410);
     expect(again.body.error.code).toBe('token_expired');
   });
@@ -44,7 +59,10 @@ describe('password reset by e-mail', () => {
     const { passwordResets } = await import('../../server/db/tables/index');
     // Move the expiry an hour back, as if the link had sat unused.
     await t.db.update(passwordResets).set({ expiresAt: new Date(Date.now() - 1) });
-    const res = await t.anon().post('/api/v1/password-resets/complete').send({ token, password: 'a-brand-new-password' });
+    const res = await t
+      .anon()
+      .post('/api/v1/password-resets/complete')
+      .send({ token, password: 'a-brand-new-password' });
     expect(res.status).toBe(410);
   });
 
@@ -55,12 +73,21 @@ describe('password reset by e-mail', () => {
   });
 
   it('rejects a made-up token with 400 and a short password with a field error', async () => {
-    const bad = await t.anon().post('/api/v1/password-resets/complete').send({ token: 'x'.repeat(43), password: 'a-brand-new-password' });
+    const bad = await t
+      .anon()
+      .post('/api/v1/password-resets/complete')
+      .send({ token: 'x'.repeat(43), password: 'a-brand-new-password' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('bad_request');
-    const short = await t.anon().post('/api/v1/password-resets/complete').send({ token: 'x'.repeat(43), password: 'short' });
+    const short = await t
+      .anon()
+      .post('/api/v1/password-resets/complete')
+      .send({ token: 'x'.repeat(43), password: 'short' });
     expect(short.status).toBe(400);
-    expect(short.body.error.details.issues[0]).toMatchObject({ path: ['body', 'password'], message: 'Use at least 10 characters.' });
+    expect(short.body.error.details.issues[0]).toMatchObject({
+      path: ['body', 'password'],
+      message: 'Use at least 10 characters.',
+    });
   });
 
   it('stores only a hash of the token', async () => {

@@ -24,7 +24,9 @@ describe('PGlite on disk', () => {
     const open1 = await openDatabase({ kind: 'pglite', dataDir });
     await runMigrations(open1);
     const first = await startTestApp({ open: open1 });
-    const signIn = await request(first.url).post('/api/v1/session').send({ email: demoUsers.member, password: DEMO_PASSWORD });
+    const signIn = await request(first.url)
+      .post('/api/v1/session')
+      .send({ email: demoUsers.member, password: DEMO_PASSWORD });
     expect(signIn.status).toBe(200);
     const cookie = (signIn.headers['set-cookie'] as unknown as string[])[0]!.split(';')[0]!;
     await first.close(); // closes PGlite too

@@ -21,13 +21,18 @@ describe('POST /api/v1/session', () => {
     expect(res.status).toBe(200);
     expect(res.body.user.email).toBe(demoUsers.member);
     expect(res.body.via).toBe('session');
-    expect(res.body.teams).toEqual([{ id: t.ids.teams.kestrel, name: 'Kestrel Bay Process Lab', slug: 'kestrel-bay', role: 'member' }]);
+    expect(res.body.teams).toEqual([
+      { id: t.ids.teams.kestrel, name: 'Kestrel Bay Process Lab', slug: 'kestrel-bay', role: 'member' },
+    ]);
     const me = await agent.get('/api/v1/session');
     expect(me.body.user.id).toBe(t.ids.users.member);
   });
 
   it('accepts the e-mail in any letter case', async () => {
-    const res = await t.anon().post('/api/v1/session').send({ email: demoUsers.member.toUpperCase(), password: DEMO_PASSWORD });
+    const res = await t
+      .anon()
+      .post('/api/v1/session')
+      .send({ email: demoUsers.member.toUpperCase(), password: DEMO_PASSWORD });
     expect(res.status).toBe(200);
   });
 
@@ -60,8 +65,14 @@ describe('POST /api/v1/session', () => {
   });
 
   it('answers a wrong password with 401 and one clear message that does not reveal whether the account exists', async () => {
-    const wrong = await t.anon().post('/api/v1/session').send({ email: demoUsers.member, password: 'not the password' });
-    const unknown = await t.anon().post('/api/v1/session').send({ email: 'nobody@kestrel.example', password: 'not the password' });
+    const wrong = await t
+      .anon()
+      .post('/api/v1/session')
+      .send({ email: demoUsers.member, password: 'not the password' });
+    const unknown = await t
+      .anon()
+      .post('/api/v1/session')
+      .send({ email: 'nobody@kestrel.example', password: 'not the password' });
     for (const res of [wrong, unknown]) {
       expect(res.status).toBe(401);
       expect(res.body).toEqual({ error: { code: 'invalid_credentials', message: 'E-mail or password is wrong.' } });
@@ -84,7 +95,10 @@ describe('POST /api/v1/session', () => {
 
   it('locks an account with 429 and Retry-After after repeated failures, even for the right password', async () => {
     for (let i = 0; i < 5; i++) {
-      const res = await t.anon().post('/api/v1/session').send({ email: demoUsers.viewer, password: `wrong-${i}` });
+      const res = await t
+        .anon()
+        .post('/api/v1/session')
+        .send({ email: demoUsers.viewer, password: `wrong-${i}` });
       expect(res.status).toBe(401);
     }
     const blocked = await t.anon().post('/api/v1/session').send({ email: demoUsers.viewer, password: DEMO_PASSWORD });

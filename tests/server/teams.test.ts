@@ -14,9 +14,15 @@ describe('team notes', () => {
     const base = `/api/v1/teams/${t.ids.teams.kestrel}/notes`;
     const created = await milo.post(base).send({ title: '  Condenser duty  ', body: 'Check the reflux load.' });
     expect(created.status).toBe(201);
-    expect(created.body).toMatchObject({ title: 'Condenser duty', authorName: 'Milo Member', teamId: t.ids.teams.kestrel });
+    expect(created.body).toMatchObject({
+      title: 'Condenser duty',
+      authorName: 'Milo Member',
+      teamId: t.ids.teams.kestrel,
+    });
 
-    const edited = await milo.patch(`${base}/${created.body.id}`).send({ title: 'Condenser duty (rev. 2)', body: 'Reflux load checked.' });
+    const edited = await milo
+      .patch(`${base}/${created.body.id}`)
+      .send({ title: 'Condenser duty (rev. 2)', body: 'Reflux load checked.' });
     expect(edited.status).toBe(200);
     expect(Date.parse(edited.body.updatedAt)).toBeGreaterThanOrEqual(Date.parse(created.body.updatedAt));
 
@@ -37,7 +43,9 @@ describe('team notes', () => {
 
     const milo = await t.signIn('member');
     expect((await milo.get(`/api/v1/teams/${t.ids.teams.larchmont}/notes`)).status).toBe(403);
-    const sneaky = await milo.patch(`/api/v1/teams/${t.ids.teams.kestrel}/notes/${larchNoteId}`).send({ title: 'mine now', body: '' });
+    const sneaky = await milo
+      .patch(`/api/v1/teams/${t.ids.teams.kestrel}/notes/${larchNoteId}`)
+      .send({ title: 'mine now', body: '' });
     expect(sneaky.status).toBe(404);
     const still = await lena.get(`/api/v1/teams/${t.ids.teams.larchmont}/notes`);
     expect(still.body.notes[0].title).not.toBe('mine now');

@@ -9,7 +9,11 @@ export const users = pgTable('users', {
   displayName: text('display_name').notNull(),
   /** argon2id encoded hash. */
   passwordHash: text('password_hash').notNull(),
-  siteRoles: text('site_roles').array().$type<SiteRole[]>().notNull().default(sql`'{}'::text[]`),
+  siteRoles: text('site_roles')
+    .array()
+    .$type<SiteRole[]>()
+    .notNull()
+    .default(sql`'{}'::text[]`),
   disabled: boolean('disabled').notNull().default(false),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

@@ -30,7 +30,11 @@ export interface ResolvedNavItem extends NavItem {
  * The links this session may use. Team areas need a current team and link to it; an area the
  * role may not open is left out rather than shown disabled.
  */
-export function visibleNavItems(items: readonly NavItem[], session: SessionInfo, currentTeamId: string | null): ResolvedNavItem[] {
+export function visibleNavItems(
+  items: readonly NavItem[],
+  session: SessionInfo,
+  currentTeamId: string | null,
+): ResolvedNavItem[] {
   const out: ResolvedNavItem[] = [];
   for (const item of items) {
     const isTeamArea = typeof item.access === 'object' && 'team' in item.access;

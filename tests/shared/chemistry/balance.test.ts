@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { BalanceInputError, balanceEquationText, EquationParseError, elementBalanceTable, parseEquation } from '@shared/chemistry';
+import {
+  BalanceInputError,
+  balanceEquationText,
+  EquationParseError,
+  elementBalanceTable,
+  parseEquation,
+} from '@shared/chemistry';
 import type { BalanceResult } from '@shared/chemistry';
 import { balanceResultSchema } from '@shared/schemas/balance';
 
@@ -32,7 +38,14 @@ describe('balanceEquationText — textbook worked examples', () => {
   it('balances dichromate with iron(II) in acidic solution', () => {
     // Cr2O7²⁻ + 6 Fe²⁺ + 14 H⁺ → 2 Cr³⁺ + 6 Fe³⁺ + 7 H2O: D. A. Skoog et al., Fundamentals of
     // Analytical Chemistry, 9th ed. (Brooks/Cole 2014), ch. 18; from memory.
-    expect(coefficients(balance('Cr2O7{2-}(aq) + Fe²⁺(aq) + H+(aq) -> Cr^3+(aq) + Fe^3+(aq) + H2O(l)'))).toEqual(['1', '6', '14', '2', '6', '7']);
+    expect(coefficients(balance('Cr2O7{2-}(aq) + Fe²⁺(aq) + H+(aq) -> Cr^3+(aq) + Fe^3+(aq) + H2O(l)'))).toEqual([
+      '1',
+      '6',
+      '14',
+      '2',
+      '6',
+      '7',
+    ]);
   });
 
   it('balances permanganate with cyanide in basic solution', () => {
@@ -132,7 +145,14 @@ describe('balanceEquationText — outcomes', () => {
     expect(r.dimension).toBe(2);
     expect(r.basis).toHaveLength(2);
     for (const v of r.basis!) {
-      const table = elementBalanceTable(r.terms.map((t, j) => ({ composition: parseEquation('C + O2 -> CO + CO2').terms[j]!.species.composition, charge: 0, side: t.side, coefficient: v[j]! })));
+      const table = elementBalanceTable(
+        r.terms.map((t, j) => ({
+          composition: parseEquation('C + O2 -> CO + CO2').terms[j]!.species.composition,
+          charge: 0,
+          side: t.side,
+          coefficient: v[j]!,
+        })),
+      );
       expect(table.every((row) => row.reactants === row.products)).toBe(true);
     }
     const chosen = balance('C + O2 -> CO + CO2', { fixed: { '2': '2', '3': '1' } });

@@ -37,7 +37,9 @@ describe('formatEquation', () => {
   it('formats a parsed equation and a balance result', () => {
     const eq = parseEquation('2H2(g) + O2(g) -> 2H2O(l), ΔH = -571.66 kJ');
     expect(formatEquation(eq, 'unicode')).toBe('2 H₂(g) + O₂(g) → 2 H₂O(l), ΔH = −571.66 kJ/mol');
-    expect(formatEquation(eq, 'mhchem')).toBe('\\ce{2 H2(g) + O2(g) -> 2 H2O(l)} \\quad \\Delta H = \\pu{-571.66 kJ mol^-1}');
+    expect(formatEquation(eq, 'mhchem')).toBe(
+      '\\ce{2 H2(g) + O2(g) -> 2 H2O(l)} \\quad \\Delta H = \\pu{-571.66 kJ mol^-1}',
+    );
     const r = balanceEquationText({ equation: 'Fe^2+ + MnO4- + H+ -> Fe^3+ + Mn^2+ + H2O' });
     expect(formatEquation(r, 'text')).toBe(r.equation);
     expect(formatEquation(r, 'html')).toContain('5 Fe<sup>2+</sup>');
@@ -48,7 +50,9 @@ describe('formatEquation', () => {
   it('gives text that parses back to the same equation', () => {
     const eq = parseEquation('1/2 N2(g) + 3/2 H2(g) -> NH3(g), ΔH = -45.9 kJ');
     const again = parseEquation(formatEquation(eq, 'text'));
-    expect(again.terms.map((t) => [t.coefficient, t.species.hill, t.species.phase])).toEqual(eq.terms.map((t) => [t.coefficient, t.species.hill, t.species.phase]));
+    expect(again.terms.map((t) => [t.coefficient, t.species.hill, t.species.phase])).toEqual(
+      eq.terms.map((t) => [t.coefficient, t.species.hill, t.species.phase]),
+    );
     expect(again.enthalpy?.value).toBeCloseTo(-45.9, 12);
   });
 });

@@ -28,7 +28,13 @@ describe('integerNullspace', () => {
       fc.property(
         fc.integer({ min: 1, max: 7 }).chain((rows) =>
           fc.integer({ min: 1, max: 9 }).chain((cols) =>
-            fc.tuple(fc.constant(cols), fc.array(fc.array(fc.integer({ min: -12, max: 12 }), { minLength: cols, maxLength: cols }), { minLength: rows, maxLength: rows })),
+            fc.tuple(
+              fc.constant(cols),
+              fc.array(fc.array(fc.integer({ min: -12, max: 12 }), { minLength: cols, maxLength: cols }), {
+                minLength: rows,
+                maxLength: rows,
+              }),
+            ),
           ),
         ),
         ([cols, a]) => {
@@ -39,7 +45,13 @@ describe('integerNullspace', () => {
             for (const row of a) expect(row.reduce((s, x, j) => s + BigInt(x) * v[j]!, 0n)).toBe(0n);
           }
           // Independence: the basis vectors as rows have full rank.
-          if (ns.basis.length) expect(referenceRank(ns.basis.map((v) => v.map(Number)), cols)).toBe(ns.basis.length);
+          if (ns.basis.length)
+            expect(
+              referenceRank(
+                ns.basis.map((v) => v.map(Number)),
+                cols,
+              ),
+            ).toBe(ns.basis.length);
         },
       ),
       { numRuns: 400 },
@@ -48,7 +60,13 @@ describe('integerNullspace', () => {
 
   it('falls back to BigInt when products leave the safe-integer range', () => {
     const big = 2 ** 40;
-    const ns = integerNullspace([[big, big + 1, 3], [big - 7, 5, big]], 3);
+    const ns = integerNullspace(
+      [
+        [big, big + 1, 3],
+        [big - 7, 5, big],
+      ],
+      3,
+    );
     expect(ns.basis).toHaveLength(1);
     const v = ns.basis[0]!;
     expect(BigInt(big) * v[0]! + BigInt(big + 1) * v[1]! + 3n * v[2]!).toBe(0n);
@@ -57,16 +75,25 @@ describe('integerNullspace', () => {
 });
 
 describe('findPositiveCombination', () => {
-  it("agrees with Fourier–Motzkin elimination on feasibility, and its answers are positive", () => {
+  it('agrees with Fourier–Motzkin elimination on feasibility, and its answers are positive', () => {
     fc.assert(
       fc.property(
         fc.integer({ min: 1, max: 4 }).chain((k) =>
-          fc.tuple(fc.constant(k), fc.array(fc.array(fc.integer({ min: -5, max: 5 }).map(BigInt), { minLength: k, maxLength: k }), { minLength: 1, maxLength: 5 })),
+          fc.tuple(
+            fc.constant(k),
+            fc.array(fc.array(fc.integer({ min: -5, max: 5 }).map(BigInt), { minLength: k, maxLength: k }), {
+              minLength: 1,
+              maxLength: 5,
+            }),
+          ),
         ),
         ([k, m]) => {
           const c = findPositiveCombination(m, k);
           // FM reference over all constraints: c_j ≥ 1 and M c ≥ 1.
-          const q = [...Array.from({ length: k }, (_, j) => Array.from({ length: k }, (_, l) => (l === j ? 1n : 0n))), ...m];
+          const q = [
+            ...Array.from({ length: k }, (_, j) => Array.from({ length: k }, (_, l) => (l === j ? 1n : 0n))),
+            ...m,
+          ];
           const w = findStrictlyPositive(q, k);
           expect(c === null).toBe(w === null);
           if (c) {
@@ -75,7 +102,6 @@ describe('findPositiveCombination', () => {
               let num = 0n;
               for (let j = 0; j < k; j++) {
                 num += row[j]! * c[j]!;
-
               }
               expect(num > 0n).toBe(true);
             }

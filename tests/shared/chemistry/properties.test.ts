@@ -14,11 +14,35 @@ import { hillFormula, compositionOf } from '@shared/chemistry/hill';
 import { chargeText, partsText } from '@shared/chemistry/species';
 
 // Property-based tests (fast-check). Structures are generated, formatted by us, and read back.
-const SYMBOLS = ['H', 'C', 'N', 'O', 'S', 'Cl', 'Na', 'K', 'Fe', 'Cu', 'Co', 'Mn', 'Cr', 'P', 'Ca', 'Mg', 'D', 'Og', 'Ts'];
+const SYMBOLS = [
+  'H',
+  'C',
+  'N',
+  'O',
+  'S',
+  'Cl',
+  'Na',
+  'K',
+  'Fe',
+  'Cu',
+  'Co',
+  'Mn',
+  'Cr',
+  'P',
+  'Ca',
+  'Mg',
+  'D',
+  'Og',
+  'Ts',
+];
 
 const item: fc.Memo<FormulaItem> = fc.memo((depth) =>
   depth <= 1
-    ? fc.record({ kind: fc.constant('element' as const), symbol: fc.constantFrom(...SYMBOLS), count: fc.integer({ min: 1, max: 12 }) })
+    ? fc.record({
+        kind: fc.constant('element' as const),
+        symbol: fc.constantFrom(...SYMBOLS),
+        count: fc.integer({ min: 1, max: 12 }),
+      })
     : fc.oneof(
         { weight: 3, arbitrary: item(1) },
         {
@@ -32,10 +56,15 @@ const item: fc.Memo<FormulaItem> = fc.memo((depth) =>
         },
       ),
 );
-const parts: fc.Arbitrary<FormulaPart[]> = fc.array(
-  fc.record({ multiplier: fc.integer({ min: 1, max: 10 }), items: fc.array(item(3), { minLength: 1, maxLength: 4 }) }),
-  { minLength: 1, maxLength: 3 },
-).map((ps) => ps.map((p, i) => (i === 0 ? { ...p, multiplier: 1 } : p)));
+const parts: fc.Arbitrary<FormulaPart[]> = fc
+  .array(
+    fc.record({
+      multiplier: fc.integer({ min: 1, max: 10 }),
+      items: fc.array(item(3), { minLength: 1, maxLength: 4 }),
+    }),
+    { minLength: 1, maxLength: 3 },
+  )
+  .map((ps) => ps.map((p, i) => (i === 0 ? { ...p, multiplier: 1 } : p)));
 
 const speciesArb: fc.Arbitrary<ParsedSpecies> = fc
   .tuple(parts, fc.integer({ min: -4, max: 4 }), fc.constantFrom(null, 's', 'l', 'g', 'aq', 'cr', 'am'))
@@ -78,15 +107,30 @@ describe('balanceEquationText', () => {
   it('returns only balancings that conserve each element and the charge exactly', () => {
     fc.assert(
       fc.property(side, side, (left, right) => {
-        const text = (list: ParsedSpecies[]): string => list.map((s) => formatFormula({ ...s, phase: null }, 'text')).join(' + ');
+        const text = (list: ParsedSpecies[]): string =>
+          list.map((s) => formatFormula({ ...s, phase: null }, 'text')).join(' + ');
         const equation = `${text(left)} -> ${text(right)}`;
         const r = balanceEquationText({ equation });
         const parsed = parseEquation(equation);
         const check = (coefficients: string[]): void => {
-          const rows = elementBalanceTable(parsed.terms.map((t, j) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: coefficients[j]! })));
+          const rows = elementBalanceTable(
+            parsed.terms.map((t, j) => ({
+              composition: t.species.composition,
+              charge: t.species.charge,
+              side: t.side,
+              coefficient: coefficients[j]!,
+            })),
+          );
           for (const row of rows) expect(row.reactants).toBe(row.products);
         };
-        const asTyped = elementBalanceTable(parsed.terms.map((t) => ({ composition: t.species.composition, charge: t.species.charge, side: t.side, coefficient: t.coefficient })));
+        const asTyped = elementBalanceTable(
+          parsed.terms.map((t) => ({
+            composition: t.species.composition,
+            charge: t.species.charge,
+            side: t.side,
+            coefficient: t.coefficient,
+          })),
+        );
         if (r.asGiven) expect(r.givenImbalance).toBeUndefined();
         else expect(r.givenImbalance).toEqual(asTyped);
         if (r.status !== 'impossible') {
@@ -104,12 +148,18 @@ describe('balanceEquationText', () => {
   // Decomposition into elements is always possible: A_x B_y… -> A + B2 + …
   it('always balances a decomposition into the elements', () => {
     fc.assert(
-      fc.property(fc.array(speciesArb.map((s) => ({ ...s, charge: 0, formula: partsText(s.parts) })), { minLength: 1, maxLength: 3 }), (list) => {
-        const symbols = [...new Set(list.flatMap((s) => Object.keys(s.composition)))];
-        const equation = `${list.map((s) => formatFormula({ ...s, phase: null }, 'text')).join(' + ')} -> ${symbols.map((s) => `${s}2`).join(' + ')}`;
-        const r = balanceEquationText({ equation });
-        expect(['balanced', 'multiple']).toContain(r.status);
-      }),
+      fc.property(
+        fc.array(
+          speciesArb.map((s) => ({ ...s, charge: 0, formula: partsText(s.parts) })),
+          { minLength: 1, maxLength: 3 },
+        ),
+        (list) => {
+          const symbols = [...new Set(list.flatMap((s) => Object.keys(s.composition)))];
+          const equation = `${list.map((s) => formatFormula({ ...s, phase: null }, 'text')).join(' + ')} -> ${symbols.map((s) => `${s}2`).join(' + ')}`;
+          const r = balanceEquationText({ equation });
+          expect(['balanced', 'multiple']).toContain(r.status);
+        },
+      ),
       { numRuns: 200 },
     );
   });
@@ -119,22 +169,29 @@ describe('parseEquation on arbitrary text', () => {
   const alphabet = fc.constantFrom(...'HCONSFeClXxq0123456789()[]{}^+-−→⇌<=>·*. ,;/ΔdkJcal₂²⁻⁺e\n\t#'.split(''));
   it('only ever throws EquationParseError, never crashes', () => {
     fc.assert(
-      fc.property(fc.oneof(fc.string({ unit: alphabet, maxLength: 40 }), fc.string({ maxLength: 40 }), fc.string({ unit: 'binary', maxLength: 30 })), (text) => {
-        try {
-          parseEquation(text);
-        } catch (err) {
-          expect(err).toBeInstanceOf(EquationParseError);
-          const e = err as EquationParseError;
-          expect(e.position.line).toBeGreaterThanOrEqual(1);
-          expect(e.position.column).toBeGreaterThanOrEqual(1);
-          expect(e.message).not.toMatch(/but .* found\.$/);
-        }
-        try {
-          balanceEquationText({ equation: text || ' ' });
-        } catch (err) {
-          expect(err).toBeInstanceOf(ChemistryError);
-        }
-      }),
+      fc.property(
+        fc.oneof(
+          fc.string({ unit: alphabet, maxLength: 40 }),
+          fc.string({ maxLength: 40 }),
+          fc.string({ unit: 'binary', maxLength: 30 }),
+        ),
+        (text) => {
+          try {
+            parseEquation(text);
+          } catch (err) {
+            expect(err).toBeInstanceOf(EquationParseError);
+            const e = err as EquationParseError;
+            expect(e.position.line).toBeGreaterThanOrEqual(1);
+            expect(e.position.column).toBeGreaterThanOrEqual(1);
+            expect(e.message).not.toMatch(/but .* found\.$/);
+          }
+          try {
+            balanceEquationText({ equation: text || ' ' });
+          } catch (err) {
+            expect(err).toBeInstanceOf(ChemistryError);
+          }
+        },
+      ),
       { numRuns: 2000 },
     );
   });
