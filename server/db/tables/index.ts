@@ -8,3 +8,4 @@ export * from './invitations';
 export * from './password-resets';
 export * from './audit-log';
 export * from './notes';
+export * from './library';

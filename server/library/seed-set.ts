@@ -1,0 +1,593 @@
+import Papa from 'papaparse';
+import { z } from 'zod';
+import { molarMass, parseFormula } from '@shared/chemistry/index';
+import {
+  heatCapacityFormSchema,
+  libraryPhaseSchema,
+  libraryPropertySchema,
+  modelScaleSchema,
+  propertyUnits,
+  provenanceSchema,
+  sourceKindSchema,
+  uncertaintyKindSchema,
+  type HeatCapacityForm,
+  type LibraryPhase,
+  type LibraryProperty,
+  type ModelScale,
+  type Provenance,
+  type SourceKind,
+  type UncertaintyKind,
+} from '@shared/schemas/library-core';
+
+/**
+ * Reads a set of library files in the seed format (seeds/library/FORMAT.md) into typed records,
+ * checking every field, every key and every cross-reference. Used by the seed step (revision 1)
+ * and by imports; nothing is written anywhere, so a set with problems changes nothing.
+ */
+
+export interface LibraryFile {
+  /** File name as the user knows it (for messages), e.g. "values-codata.csv". */
+  name: string;
+  text: string;
+}
+
+/** Where a record was read: file name and line (from 1; the CSV header is line 1). */
+export interface Origin {
+  file: string;
+  line: number;
+}
+
+/** One problem in one place: file, line (from 1, the header is line 1) and column name. */
+export interface SetProblem {
+  file: string;
+  line: number;
+  column?: string;
+  message: string;
+}
+
+export interface SourceRecord {
+  origin: Origin;
+  key: string;
+  kind: SourceKind;
+  authors: string;
+  title: string;
+  publication: string | null;
+  year: number | null;
+  volume: string | null;
+  pages: string | null;
+  doi: string | null;
+  isbn: string | null;
+  url: string | null;
+  note: string | null;
+}
+
+export interface SpeciesRecord {
+  origin: Origin;
+  key: string;
+  formula: string;
+  hill: string;
+  charge: number;
+  phase: LibraryPhase;
+  descriptor: string | null;
+  name: string;
+  synonyms: string[];
+  cas: string | null;
+  inchikey: string | null;
+  inchi: string | null;
+  referenceState: string | null;
+  molarMass: number;
+  note: string | null;
+}
+
+export interface ValueRecord {
+  origin: Origin;
+  species: string;
+  property: LibraryProperty;
+  /** Decimal text as the source prints it. */
+  value: string;
+  uncertaintyKind: UncertaintyKind;
+  uncertainty: string | null;
+  k: number | null;
+  source: string;
+  table: string | null;
+  entryNote: string | null;
+  provenance: Provenance;
+  pressureBar: number;
+  ionConvention: string | null;
+  note: string | null;
+}
+
+export interface ModelRecord {
+  origin: Origin;
+  species: string;
+  source: string;
+  entryNote: string | null;
+  provenance: Provenance;
+  provenanceNote: string | null;
+  scale: ModelScale;
+  forms: HeatCapacityForm[];
+}
+
+export interface SelectionRecord {
+  origin: Origin;
+  species: string;
+  property: LibraryProperty | 'cp';
+  source: string;
+  reason: string;
+}
+
+export interface LibrarySet {
+  sources: SourceRecord[];
+  species: SpeciesRecord[];
+  values: ValueRecord[];
+  models: ModelRecord[];
+  selections: SelectionRecord[];
+}
+
+const decimalText = /^-?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+const optionalText = z
+  .string()
+  .transform((v) => v.trim())
+  .transform((v) => (v === '' ? null : v));
+const requiredText = z.string().trim().min(1, 'must not be empty');
+const decimal = z.string().trim().regex(decimalText, 'must be a decimal number such as -393.51');
+const optionalDecimal = z
+  .string()
+  .trim()
+  .refine((v) => v === '' || decimalText.test(v), 'must be empty or a decimal number')
+  .transform((v) => (v === '' ? null : v));
+
+const sourceRow = z.object({
+  key: z
+    .string()
+    .trim()
+    .regex(/^[a-z0-9][a-z0-9.-]*$/, 'must be a lower-case slug such as codata-1989'),
+  kind: sourceKindSchema,
+  authors: requiredText,
+  title: requiredText,
+  publication: optionalText,
+  year: optionalText
+    .refine(
+      (v) => v === null || (/^\d{4}$/.test(v) && Number(v) >= 1500 && Number(v) <= 2100),
+      'must be a year such as 1989',
+    )
+    .transform((v) => (v === null ? null : Number(v))),
+  volume: optionalText,
+  pages: optionalText,
+  doi: optionalText,
+  isbn: optionalText,
+  url: optionalText,
+  note: optionalText,
+});
+
+const casPattern = /^\d{2,7}-\d{2}-\d$/;
+
+/** Whether a CAS Registry Number's check digit is right (weighted sum of the other digits mod 10). */
+export function casCheckDigitValid(cas: string): boolean {
+  if (!casPattern.test(cas)) return false;
+  const digits = cas.replace(/-/g, '');
+  const check = Number(digits[digits.length - 1]);
+  const body = digits.slice(0, -1).split('').reverse();
+  const sum = body.reduce((s, d, i) => s + Number(d) * (i + 1), 0);
+  return sum % 10 === check;
+}
+
+const speciesRow = z.object({
+  key: requiredText,
+  formula: requiredText,
+  phase: libraryPhaseSchema,
+  descriptor: optionalText,
+  charge: z
+    .string()
+    .trim()
+    .regex(/^-?\d+$/, 'must be a whole number')
+    .transform(Number),
+  name: requiredText,
+  synonyms: optionalText.transform((v) =>
+    v === null
+      ? []
+      : v
+          .split(';')
+          .map((s) => s.trim())
+          .filter(Boolean),
+  ),
+  cas: optionalText.refine((v) => v === null || casCheckDigitValid(v), 'is not a valid CAS RN (check digit)'),
+  inchikey: optionalText.refine(
+    (v) => v === null || /^[A-Z]{14}-[A-Z]{10}-[A-Z]$/.test(v),
+    'is not an InChIKey (14-10-1 upper-case letters)',
+  ),
+  inchi: optionalText.refine((v) => v === null || v.startsWith('InChI='), 'must start with InChI='),
+  reference_state: optionalText,
+  note: optionalText,
+});
+
+const valueRow = z.object({
+  species: requiredText,
+  property: libraryPropertySchema,
+  value: decimal,
+  unit: requiredText,
+  uncertainty_kind: uncertaintyKindSchema,
+  uncertainty: optionalDecimal,
+  k: optionalDecimal.transform((v) => (v === null ? null : Number(v))),
+  source: requiredText,
+  table: optionalText,
+  entry_note: optionalText,
+  provenance: provenanceSchema,
+  pressure_bar: z.enum(['1', '1.01325'], { message: 'must be 1 or 1.01325' }).transform(Number),
+  ion_convention: optionalText.refine(
+    (v) => v === null || v === 'thermal-electron' || v === 'ion',
+    'must be thermal-electron, ion or empty',
+  ),
+  note: optionalText,
+});
+
+const modelLine = z.object({
+  species: requiredText,
+  source: requiredText,
+  entryNote: z.string().nullable().optional(),
+  provenance: provenanceSchema,
+  provenanceNote: z.string().nullable().optional(),
+  scale: modelScaleSchema,
+  forms: z.array(heatCapacityFormSchema).min(1),
+});
+
+const selectionRow = z.object({
+  species: requiredText,
+  property: z.enum(['dfH298', 'S298', 'cp']),
+  source: requiredText,
+  reason: requiredText,
+});
+
+function zodProblems(origin: Origin, error: z.ZodError): SetProblem[] {
+  return error.issues.map((issue) => {
+    const column = issue.path.map(String).join('.') || undefined;
+    return { ...origin, ...(column ? { column } : {}), message: `${column ?? 'row'} ${issue.message}` };
+  });
+}
+
+/** Parses a CSV file with a fixed header; every data row is checked against `schema`. */
+function readCsv<S extends z.ZodType>(
+  file: LibraryFile,
+  header: readonly string[],
+  schema: S,
+  problems: SetProblem[],
+): { row: z.output<S>; origin: Origin }[] {
+  const parsed = Papa.parse<Record<string, string>>(file.text, { header: true, skipEmptyLines: 'greedy' });
+  const fields = parsed.meta.fields ?? [];
+  const missing = header.filter((h) => !fields.includes(h));
+  const extra = fields.filter((h) => !header.includes(h));
+  if (missing.length > 0 || extra.length > 0) {
+    const detail = [
+      missing.length ? `missing ${missing.join(', ')}` : '',
+      extra.length ? `unknown ${extra.join(', ')}` : '',
+    ]
+      .filter(Boolean)
+      .join('; ');
+    problems.push({ file: file.name, line: 1, message: `The header must be ${header.join(',')} (${detail}).` });
+    return [];
+  }
+  const lineOf = rowStartLines(file.text);
+  for (const error of parsed.errors) {
+    problems.push({ file: file.name, line: lineOf(error.row ?? 0), message: `CSV: ${error.message}` });
+  }
+  const rows: { row: z.output<S>; origin: Origin }[] = [];
+  parsed.data.forEach((raw, i) => {
+    const origin = { file: file.name, line: lineOf(i) };
+    const checked = schema.safeParse(raw);
+    if (!checked.success) problems.push(...zodProblems(origin, checked.error));
+    else rows.push({ row: checked.data, origin });
+  });
+  return rows;
+}
+
+/** Maps a data-row index to the line it starts on, honouring quoted fields that span lines. */
+function rowStartLines(text: string): (row: number) => number {
+  const starts: number[] = [];
+  let line = 1;
+  let inQuotes = false;
+  let atRowStart = false; // the header row is not a data row
+  for (const c of text) {
+    if (atRowStart && c !== '\n' && c !== '\r') {
+      starts.push(line);
+      atRowStart = false;
+    }
+    if (c === '"') inQuotes = !inQuotes;
+    else if (c === '\n') {
+      line++;
+      if (!inQuotes) atRowStart = true;
+    }
+  }
+  return (row) => starts[row] ?? row + 2;
+}
+
+const headers = {
+  sources: ['key', 'kind', 'authors', 'title', 'publication', 'year', 'volume', 'pages', 'doi', 'isbn', 'url', 'note'],
+  species: [
+    'key',
+    'formula',
+    'phase',
+    'descriptor',
+    'charge',
+    'name',
+    'synonyms',
+    'cas',
+    'inchikey',
+    'inchi',
+    'reference_state',
+    'note',
+  ],
+  values: [
+    'species',
+    'property',
+    'value',
+    'unit',
+    'uncertainty_kind',
+    'uncertainty',
+    'k',
+    'source',
+    'table',
+    'entry_note',
+    'provenance',
+    'pressure_bar',
+    'ion_convention',
+    'note',
+  ],
+  selections: ['species', 'property', 'source', 'reason'],
+} as const;
+
+/** Which kind of records a file holds, from its name. */
+export function fileKind(name: string): 'sources' | 'species' | 'values' | 'models' | 'selections' | null {
+  const base = name.split('/').pop() ?? name;
+  if (base === 'sources.csv') return 'sources';
+  if (base === 'selections.csv') return 'selections';
+  if (/^species(-[\w.-]+)?\.csv$/.test(base)) return 'species';
+  if (/^values(-[\w.-]+)?\.csv$/.test(base)) return 'values';
+  if (/^models(-[\w.-]+)?\.jsonl$/.test(base)) return 'models';
+  return null;
+}
+
+/** Reads a species key with the equation core and checks it against the row's own columns. */
+function toSpecies(row: z.output<typeof speciesRow>, origin: Origin, problems: SetProblem[]): SpeciesRecord | null {
+  let parsed: ReturnType<typeof parseFormula>;
+  try {
+    parsed = parseFormula(row.key);
+  } catch (error) {
+    problems.push({
+      ...origin,
+      column: 'key',
+      message: `key '${row.key}' is not a species in the equation language: ${(error as Error).message}`,
+    });
+    return null;
+  }
+  const phase = parsed.phase === 's' ? 'cr' : parsed.phase;
+  const mismatches: string[] = [];
+  if (parsed.formula !== row.formula) mismatches.push(`formula ${parsed.formula} (column says ${row.formula})`);
+  if (phase !== row.phase) mismatches.push(`phase ${phase ?? 'none'} (column says ${row.phase})`);
+  if ((parsed.descriptor ?? null) !== row.descriptor)
+    mismatches.push(`descriptor ${parsed.descriptor ?? 'none'} (column says ${row.descriptor ?? 'none'})`);
+  if (parsed.charge !== row.charge) mismatches.push(`charge ${parsed.charge} (column says ${row.charge})`);
+  if (mismatches.length > 0) {
+    problems.push({ ...origin, column: 'key', message: `key '${row.key}' reads as ${mismatches.join(', ')}.` });
+    return null;
+  }
+  if (row.reference_state !== null && !(row.reference_state in parsed.composition)) {
+    problems.push({
+      ...origin,
+      column: 'reference_state',
+      message: `${row.key} cannot be the reference state of ${row.reference_state}: it does not contain it.`,
+    });
+    return null;
+  }
+  return {
+    origin,
+    key: row.key,
+    formula: row.formula,
+    hill: parsed.hill,
+    charge: row.charge,
+    phase: row.phase,
+    descriptor: row.descriptor,
+    name: row.name,
+    synonyms: row.synonyms,
+    cas: row.cas,
+    inchikey: row.inchikey,
+    inchi: row.inchi,
+    referenceState: row.reference_state,
+    molarMass: parsed.electron ? 0 : molarMass(parsed.composition).value,
+    note: row.note,
+  };
+}
+
+/** Checks what a value row's columns say together (unit, uncertainty and its kind, k). */
+function toValue(r: z.output<typeof valueRow>, origin: Origin, problems: SetProblem[]): ValueRecord | null {
+  const fail = (column: string, message: string) => {
+    problems.push({ ...origin, column, message });
+    return null;
+  };
+  if (r.unit !== propertyUnits[r.property])
+    return fail('unit', `${r.property} is given in ${propertyUnits[r.property]}, not ${r.unit}.`);
+  if (r.uncertainty_kind === 'none' && r.uncertainty !== null)
+    return fail('uncertainty', 'uncertainty_kind none takes no uncertainty.');
+  if (r.uncertainty_kind !== 'none' && r.uncertainty === null)
+    return fail('uncertainty', `uncertainty_kind ${r.uncertainty_kind} needs an uncertainty.`);
+  if (r.uncertainty !== null && Number(r.uncertainty) < 0) return fail('uncertainty', 'must not be negative.');
+  if ((r.uncertainty_kind === 'expanded') !== (r.k !== null) || (r.k !== null && !(r.k > 0)))
+    return fail('k', 'a coverage factor k > 0 goes with an expanded uncertainty, and only with one.');
+  return {
+    origin,
+    species: r.species,
+    property: r.property,
+    value: r.value,
+    uncertaintyKind: r.uncertainty_kind,
+    uncertainty: r.uncertainty,
+    k: r.k,
+    source: r.source,
+    table: r.table,
+    entryNote: r.entry_note,
+    provenance: r.provenance,
+    pressureBar: r.pressure_bar,
+    ionConvention: r.ion_convention,
+    note: r.note,
+  };
+}
+
+function readModels(file: LibraryFile, problems: SetProblem[]): ModelRecord[] {
+  const out: ModelRecord[] = [];
+  file.text.split('\n').forEach((text, i) => {
+    if (text.trim() === '') return;
+    const origin = { file: file.name, line: i + 1 };
+    let json: unknown;
+    try {
+      json = JSON.parse(text);
+    } catch (error) {
+      problems.push({ ...origin, message: `not valid JSON: ${(error as Error).message}` });
+      return;
+    }
+    const checked = modelLine.safeParse(json);
+    if (!checked.success) {
+      problems.push(...zodProblems(origin, checked.error));
+      return;
+    }
+    const m = checked.data;
+    const problem = formSequenceProblem(m.scale, m.forms);
+    if (problem) {
+      problems.push({ ...origin, column: 'forms', message: problem });
+      return;
+    }
+    out.push({
+      origin,
+      species: m.species,
+      source: m.source,
+      entryNote: m.entryNote ?? null,
+      provenance: m.provenance,
+      provenanceNote: m.provenanceNote ?? null,
+      scale: m.scale,
+      forms: m.forms,
+    });
+  });
+  return out;
+}
+
+/** Temperature range [min, max] of one form's function, in K. */
+export function functionRange(form: HeatCapacityForm): [number, number] {
+  const f = form.model;
+  if (f.kind === 'cp-table') return [f.points[0]![0], f.points[f.points.length - 1]![0]];
+  if (f.kind === 'constant') return [f.range[0], f.range[1]];
+  return [f.ranges[0]!, f.ranges[f.ranges.length - 1]!];
+}
+
+/** Checks ranges ascend, coefficients match ranges, and consecutive forms share their boundary. */
+function formSequenceProblem(scale: ModelScale, forms: HeatCapacityForm[]): string | null {
+  for (const [i, form] of forms.entries()) {
+    const f = form.model;
+    if (f.kind === 'nasa7' || f.kind === 'nasa9' || f.kind === 'shomate') {
+      if (f.coefficients.length !== f.ranges.length - 1)
+        return `form ${i + 1}: ${f.ranges.length} breakpoints need ${f.ranges.length - 1} coefficient sets, found ${f.coefficients.length}.`;
+      for (let j = 1; j < f.ranges.length; j++)
+        if (!(f.ranges[j]! > f.ranges[j - 1]!)) return `form ${i + 1}: temperature breakpoints must ascend.`;
+    }
+    if (f.kind === 'cp-table') {
+      for (let j = 1; j < f.points.length; j++)
+        if (!(f.points[j]![0] > f.points[j - 1]![0])) return `form ${i + 1}: table temperatures must ascend.`;
+    }
+    if (f.kind === 'constant' && !(f.range[1] > f.range[0])) return `form ${i + 1}: the range must ascend.`;
+    if (i > 0) {
+      const previousEnd = functionRange(forms[i - 1]!)[1];
+      const start = functionRange(form)[0];
+      if (Math.abs(previousEnd - start) > 1e-6)
+        return `form ${i + 1} starts at ${start} K but form ${i} ends at ${previousEnd} K.`;
+      if (scale === 'relative' && !form.transition)
+        return `form ${i + 1}: on the relative scale every form after the first states its transition.`;
+    }
+  }
+  return null;
+}
+
+/** Cross-references: keys resolve, nothing is given twice, each element has one reference state. */
+function crossCheck(set: LibrarySet, problems: SetProblem[]): void {
+  const report = (record: { origin: Origin }, message: string, column?: string) =>
+    problems.push({ ...record.origin, ...(column ? { column } : {}), message });
+  const sourceKeys = new Set<string>();
+  for (const s of set.sources) {
+    if (sourceKeys.has(s.key)) report(s, `source ${s.key} is listed twice.`, 'key');
+    sourceKeys.add(s.key);
+  }
+  const speciesKeys = new Map<string, SpeciesRecord>();
+  const referenceOf = new Map<string, SpeciesRecord>();
+  for (const s of set.species) {
+    const seen = speciesKeys.get(s.key);
+    if (seen) report(s, `species ${s.key} is already defined in ${seen.origin.file} line ${seen.origin.line}.`, 'key');
+    speciesKeys.set(s.key, s);
+    if (!s.referenceState) continue;
+    const other = referenceOf.get(s.referenceState);
+    if (other) report(s, `${s.referenceState} already has its reference state, ${other.key}.`, 'reference_state');
+    referenceOf.set(s.referenceState, s);
+  }
+  const valueKeys = new Set<string>();
+  for (const v of set.values) {
+    if (!speciesKeys.has(v.species)) report(v, `unknown species ${v.species}.`, 'species');
+    if (!sourceKeys.has(v.source)) report(v, `unknown source ${v.source}.`, 'source');
+    const id = `${v.species}|${v.property}|${v.source}`;
+    if (valueKeys.has(id)) report(v, `${v.property} of ${v.species} from ${v.source} is given twice.`);
+    valueKeys.add(id);
+  }
+  const modelKeys = new Set<string>();
+  for (const m of set.models) {
+    if (!speciesKeys.has(m.species)) report(m, `unknown species ${m.species}.`, 'species');
+    if (!sourceKeys.has(m.source)) report(m, `unknown source ${m.source}.`, 'source');
+    const id = `${m.species}|${m.source}`;
+    if (modelKeys.has(id)) report(m, `a model of ${m.species} from ${m.source} is given twice.`);
+    modelKeys.add(id);
+  }
+  const selected = new Set<string>();
+  for (const s of set.selections) {
+    const id = `${s.species}|${s.property}`;
+    if (selected.has(id)) report(s, `${s.property} of ${s.species} is selected twice.`);
+    selected.add(id);
+    const exists = s.property === 'cp' ? modelKeys.has(`${s.species}|${s.source}`) : valueKeys.has(`${id}|${s.source}`);
+    if (!exists) report(s, `there is no ${s.property} of ${s.species} from ${s.source} to select.`, 'source');
+  }
+}
+
+/**
+ * Reads and cross-checks a whole set. Problems name file, line and column; when there is any
+ * problem the caller must not apply the set.
+ */
+export function readLibrarySet(files: readonly LibraryFile[]): { set: LibrarySet; problems: SetProblem[] } {
+  const problems: SetProblem[] = [];
+  const set: LibrarySet = { sources: [], species: [], values: [], models: [], selections: [] };
+  for (const file of files) {
+    switch (fileKind(file.name)) {
+      case 'sources':
+        for (const { row, origin } of readCsv(file, headers.sources, sourceRow, problems))
+          set.sources.push({ ...row, origin });
+        break;
+      case 'species':
+        for (const { row, origin } of readCsv(file, headers.species, speciesRow, problems)) {
+          const record = toSpecies(row, origin, problems);
+          if (record) set.species.push(record);
+        }
+        break;
+      case 'values':
+        for (const { row, origin } of readCsv(file, headers.values, valueRow, problems)) {
+          const record = toValue(row, origin, problems);
+          if (record) set.values.push(record);
+        }
+        break;
+      case 'models':
+        set.models.push(...readModels(file, problems));
+        break;
+      case 'selections':
+        for (const { row, origin } of readCsv(file, headers.selections, selectionRow, problems))
+          set.selections.push({ ...row, origin });
+        break;
+      default:
+        problems.push({
+          file: file.name,
+          line: 1,
+          message: 'Unknown file: name it sources.csv, species-*.csv, values-*.csv, models-*.jsonl or selections.csv.',
+        });
+    }
+  }
+  crossCheck(set, problems);
+  return { set, problems };
+}
