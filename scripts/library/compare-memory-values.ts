@@ -87,22 +87,28 @@ function signed(x: number): string {
   return `${r >= 0 ? '+' : '−'}${Math.abs(r).toFixed(2)}`;
 }
 
+/** |x| rounded to the shown precision. */
+function magnitude(x: number): string {
+  return (Math.round(Math.abs(x) * 100) / 100).toFixed(2);
+}
+
 function describe(
   property: string,
   against: string,
   diff: number,
-  u: number | null,
+  uText: string,
 ): { verdict: Comparison['verdict']; note: string } {
   const unit = property === 'dfH298' ? 'kJ/mol' : 'J/(mol K)';
+  const u = uText === '' ? null : Number(uText);
   if (u !== null && u > 0) {
     if (Math.abs(diff) <= u + 1e-9) return { verdict: 'agrees', note: `agrees with ${against} within ${within(diff)} ${unit}` };
     return {
       verdict: 'differs',
-      note: `differs from ${against} by ${within(diff)} ${unit} (ours ${signed(diff)}), beyond its ± ${u}`,
+      note: `differs from ${against} by ${magnitude(diff)} ${unit} (ours ${signed(diff)}), beyond its ± ${uText}`,
     };
   }
   if (Math.abs(diff) < 0.005) return { verdict: 'agrees', note: `agrees with ${against} within 0.01 ${unit}` };
-  return { verdict: 'compared', note: `differs from ${against} by ${within(diff)} ${unit} (ours ${signed(diff)}; no ± stated to judge it)` };
+  return { verdict: 'compared', note: `differs from ${against} by ${magnitude(diff)} ${unit} (ours ${signed(diff)}; no ± stated to judge it)` };
 }
 
 /** Every comparison for the value rows of a library folder. */
@@ -130,13 +136,17 @@ export function compareLibrary(libraryDir: string, nasaDir = nasaDataDir()): { c
       const { h, s } = evaluateEntry(entry);
       const reference = row.property === 'dfH298' ? h : s;
       const diff = value - reference;
+      const verdict = describe(row.property, NASA_SOURCE, diff, row.uncertainty);
+      // Name the entry and the data behind its fit (J = JANAF, CODA89 = CODATA…) where the two differ.
+      const note = verdict.verdict === 'agrees' ? verdict.note : `${verdict.note} (NASA entry ${entry.name}, ${entry.note})`;
       comparisons.push({
         ...base,
         comparedWith: NASA_SOURCE,
         reference,
         referenceLabel: entry.name,
         difference: diff,
-        ...describe(row.property, NASA_SOURCE, diff, u),
+        verdict: verdict.verdict,
+        note,
       });
       continue;
     }
@@ -154,7 +164,7 @@ export function compareLibrary(libraryDir: string, nasaDir = nasaDataDir()): { c
         reference,
         referenceLabel: null,
         difference: diff,
-        ...describe(row.property, other.source, diff, u),
+        ...describe(row.property, other.source, diff, row.uncertainty),
       });
       continue;
     }

@@ -56,7 +56,7 @@ export const PROVISIONAL_NASA_LABELS: Readonly<Record<string, string>> = {
   'Na2SO4(cr)': 'Na2SO4(V)', 'K2SO4(cr)': 'K2SO4(a)', 'CaSO4(cr)': 'CaSO4(s)', 'MgSO4(cr)': 'MgSO4(s)',
   'ZnSO4(cr)': 'ZnSO4(a)', 'FeSO4(cr)': 'FeSO4(s)', 'Ca(OH)2(cr)': 'CaO2H2(s)', 'Mg(OH)2(cr)': 'MgO2H2(s)',
   'Ba(OH)2(cr)': 'BaO2H2(s)', 'Cu(OH)2(cr)': 'CuO2H2(s)', 'Fe(OH)2(cr)': 'Fe(OH)2(s)', 'Fe(OH)3(cr)': 'Fe(OH)3(s)',
-  'Fe2O3(cr)': 'Fe2O3(s)', 'Fe3O4(cr)': 'Fe3O4(s)', 'CuO(cr)': 'CuO(s)', 'Cu2O(cr)': 'Cu2O(s)',
+  'Fe2(SO4)3(cr)': 'Fe2S3O12(s)', 'FeO(cr)': 'FeO(s)', 'Fe2O3(cr)': 'Fe2O3(s)', 'Fe3O4(cr)': 'Fe3O4(s)', 'CuO(cr)': 'CuO(s)', 'Cu2O(cr)': 'Cu2O(s)',
   'Na2O(cr)': 'Na2O(c)', 'K2O(cr)': 'K2O(s)', 'BaO(cr)': 'BaO(s)', 'CaF2(cr)': 'CaF2(a)', 'NaF(cr)': 'NaF(s)',
   'KF(cr)': 'KF(s)', 'NaBr(cr)': 'NaBr(s)', 'NaI(cr)': 'NaI(s)', 'LiCl(cr)': 'LiCL(s)', 'LiOH(cr)': 'LiOH(s)',
   'Cr2O3(cr)': 'Cr2O3(s)', 'FeS(cr)': 'FeS(a)', 'FeS2(cr)': 'FeS2(s)', 'PbS(cr)': 'PbS(s)', 'PbCl2(cr)': 'PbCL2(s)',
