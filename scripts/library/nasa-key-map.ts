@@ -4,9 +4,12 @@
  * The NASA import (seeds/library/models-nasa.jsonl) is the authority: once it exists, each model's
  * species key and the source label of its forms are read from it. Until then, and for reconciling
  * the two, PROVISIONAL_NASA_LABELS states the keys the reference-value files use for species the
- * NASA file holds, following seeds/library/FORMAT.md (proper-case formula, `cr` for every solid,
- * polymorph sequences as one `<formula>(cr)`, descriptors only for coexisting forms or isomers of
- * the whole library, Hill order for organic formulas).
+ * NASA file holds. They follow the NASA import's own mapping table (scripts/library/nasa-labels.ts on
+ * the import's branch): proper-case formula as the report writes it (Hill formula for gaseous
+ * isomers, with a descriptor), `cr` for every solid, polymorph sequences as one crystalline species,
+ * descriptors for reference allotropes and labelled minerals (`S(cr, rhombic)`, `SiO2(cr, quartz)`).
+ * One key differs on purpose: `C8H10(g, ethylbenzene)`, because this library adds the xylenes as
+ * C8H10 gases, so the import's `C8H10(g)` needs the descriptor.
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -27,26 +30,26 @@ export const PROVISIONAL_NASA_LABELS: Readonly<Record<string, string>> = {
   'Zn(g)': 'Zn', 'Cu(g)': 'Cu', 'Ti(g)': 'Ti', 'TiCl4(g)': 'TiCL4', 'Be(g)': 'Be', 'Mg(g)': 'Mg',
   'Ca(g)': 'Ca', 'Li(g)': 'Li', 'Na(g)': 'Na', 'K(g)': 'K', 'Cs(g)': 'Cs', 'Hg(g)': 'Hg',
   // gases: organics (Hill formula; descriptor where the library holds isomers in the same phase)
-  'CH4(g)': 'CH4', 'C2H6(g)': 'C2H6', 'C2H4(g)': 'C2H4', 'C2H2(g, acetylene)': 'C2H2,acetylene',
+  'CH4(g)': 'CH4', 'C2H6(g)': 'C2H6', 'C2H4(g)': 'C2H4', 'C2H2(g, ethyne)': 'C2H2,acetylene',
   'C3H8(g)': 'C3H8', 'C4H10(g, butane)': 'C4H10,n-butane', 'C5H12(g, pentane)': 'C5H12,n-pentane',
   'C7H16(g)': 'C7H16,n-heptane', 'C8H18(g, octane)': 'C8H18,n-octane',
   'C8H18(g, 2,2,4-trimethylpentane)': 'C8H18,isooctane', 'C6H12(g, cyclohexane)': 'C6H12,cyclo-',
   'C6H6(g)': 'C6H6', 'C7H8(g)': 'C7H8', 'C8H8(g)': 'C8H8,styrene', 'C8H10(g, ethylbenzene)': 'C8H10,ethylbenz',
-  'C10H8(g)': 'C10H8,naphthale', 'C6H6O(g)': 'C6H5OH,phenol',
-  'CH4O(g)': 'CH3OH', 'C2H6O(g, ethanol)': 'C2H5OH', 'C3H8O(g, propan-1-ol)': 'C3H8O,1propanol',
+  'C10H8(g)': 'C10H8,naphthale', 'C6H5OH(g)': 'C6H5OH,phenol',
+  'CH3OH(g)': 'CH3OH', 'C2H6O(g, ethanol)': 'C2H5OH', 'C3H8O(g, propan-1-ol)': 'C3H8O,1propanol',
   'C3H8O(g, propan-2-ol)': 'C3H8O,2propanol', 'C2H4O(g, acetaldehyde)': 'CH3CHO,ethanal',
-  'C2H4O2(g)': 'CH3COOH', 'CH2O2(g)': 'HCOOH', 'C2H3N(g)': 'CH3CN',
+  'CH3COOH(g)': 'CH3COOH', 'HCOOH(g)': 'HCOOH', 'CH3CN(g)': 'CH3CN',
   'CH2Cl2(g)': 'CH2CL2', 'CHCl3(g)': 'CHCL3',
   // liquids
   'H2O(l)': 'H2O(L)', 'Br2(l)': 'Br2(L)', 'Hg(l)': 'Hg(L)', 'H2SO4(l)': 'H2SO4(L)',
   'C6H6(l)': 'C6H6(L)', 'C7H8(l)': 'C7H8(L)', 'C8H18(l, octane)': 'C8H18(L),n-octa',
   // solids: elements
-  'C(cr, graphite)': 'C(gr)', 'S(cr)': 'S(cr1)', 'P(cr)': 'P(cr)', 'I2(cr)': 'I2(cr)', 'Si(cr)': 'Si(cr)',
+  'C(cr, graphite)': 'C(gr)', 'S(cr, rhombic)': 'S(cr1)', 'P(cr, white)': 'P(cr)', 'I2(cr)': 'I2(cr)', 'Si(cr)': 'Si(cr)',
   'Pb(cr)': 'Pb(cr)', 'B(cr)': 'B(b)', 'Al(cr)': 'AL(cr)', 'Zn(cr)': 'Zn(cr)', 'Cu(cr)': 'Cu(cr)',
   'Ti(cr)': 'Ti(a)', 'Be(cr)': 'Be(a)', 'Mg(cr)': 'Mg(cr)', 'Ca(cr)': 'Ca(a)', 'Li(cr)': 'Li(cr)',
   'Na(cr)': 'Na(cr)', 'K(cr)': 'K(cr)', 'Cs(cr)': 'Cs(cr)', 'Fe(cr)': 'Fe(a)',
   // solids: compounds
-  'SiO2(cr)': 'SiO2(Lqz)', 'PbO(cr)': 'PbO(rd)', 'PbO2(cr)': 'PbO2(s)', 'Al2O3(cr)': 'AL2O3(a)',
+  'SiO2(cr, quartz)': 'SiO2(Lqz)', 'PbO(cr, red)': 'PbO(rd)', 'PbO2(cr)': 'PbO2(s)', 'Al2O3(cr)': 'AL2O3(a)',
   'AlF3(cr)': 'ALF3(a)', 'HgO(cr)': 'HgO(s)', 'CuSO4(cr)': 'CuSO4(s)', 'TiO2(cr, rutile)': 'TiO2(ru)',
   'BeO(cr)': 'BeO(a)', 'MgO(cr)': 'MgO(s)', 'MgF2(cr)': 'MgF2(s)', 'CaO(cr)': 'CaO(s)',
   'NaCl(cr)': 'NaCL(s)', 'KCl(cr)': 'KCL(s)', 'NaOH(cr)': 'NaOH(a)', 'KOH(cr)': 'KOH(a)',
