@@ -155,11 +155,14 @@ export const RSS_METHOD_TEXT =
   'root-sum-square of ν·u over species taken as independent (GUM, JCGM 100:2008, 5.1); correlations between values that share auxiliary data are not included, and heat-capacity models carry no stated uncertainty';
 
 const REFERENCE_EPSILON = 1e-9;
+const ZERO = new Fraction(0);
 
 interface MergedTerm {
   species: string;
   phase: string | null;
   coefficient: Fraction;
+  /** The coefficient as a number, converted once (fraction.js arithmetic is slow on BigInt). */
+  nu: number;
   formationEnthalpy: FormationEnthalpyInput | null;
   entropy: number | null;
   model: PreparedThermoModel | null;
@@ -169,7 +172,7 @@ interface MergedTerm {
 function checkTerm(term: ReactionThermoTerm, i: number): void {
   const path = (...rest: (string | number)[]) => ['terms', i, ...rest];
   if (!(term.coefficient instanceof Fraction)) throw new ThermoInputError(`terms.${i}.coefficient must be an exact fraction`, path('coefficient'));
-  if (term.coefficient.equals(0)) throw new ThermoInputError(`terms.${i}.coefficient must not be zero`, path('coefficient'));
+  if (term.coefficient.n === 0n) throw new ThermoInputError(`terms.${i}.coefficient must not be zero`, path('coefficient'));
   if (typeof term.species !== 'string' || term.species.trim() === '') throw new ThermoInputError(`terms.${i}.species must name the species`, path('species'));
   const h = term.formationEnthalpy;
   if (h !== null) {
@@ -216,6 +219,7 @@ function mergeTerms(terms: readonly ReactionThermoTerm[]): MergedTerm[] {
         species: term.species,
         phase: term.phase,
         coefficient: term.coefficient,
+        nu: 0,
         formationEnthalpy: term.formationEnthalpy,
         entropy: term.entropy,
         model: prepareTermModel(term, i),
@@ -229,7 +233,9 @@ function mergeTerms(terms: readonly ReactionThermoTerm[]): MergedTerm[] {
       throw new ThermoInputError(`${term.species} appears in terms ${seen.firstIndex} and ${i} with different data; give each species one ΔfH°, S° and model`, ['terms', i]);
     seen.coefficient = seen.coefficient.add(term.coefficient);
   });
-  return [...byKey.values()];
+  const merged = [...byKey.values()];
+  for (const m of merged) m.nu = m.coefficient.valueOf();
+  return merged;
 }
 
 const covers = (p: PreparedThermoModel, t: number) => t >= p.range.min && t <= p.range.max;
@@ -258,33 +264,27 @@ export function reactionPropertiesAt(terms: readonly ReactionThermoTerm[], optio
   if (!Array.isArray(terms) || terms.length === 0) throw new ThermoInputError('a reaction needs at least one term', ['terms']);
 
   const merged = mergeTerms(terms);
-  const active = merged.filter((m) => !m.coefficient.equals(0));
-  const cancelled = merged.filter((m) => m.coefficient.equals(0)).map((m) => m.species);
+  const active = merged.filter((m) => m.coefficient.n !== 0n);
+  const cancelled = merged.filter((m) => m.coefficient.n === 0n).map((m) => m.species);
   const atReference = Math.abs(t - REFERENCE_TEMPERATURE) < REFERENCE_EPSILON;
   const notes: string[] = [];
 
   const problems: ReactionDataProblem[] = [];
-  const species: SpeciesAtTemperature[] = [];
+  const evaluated: [MergedTerm, SpeciesAtTemperature][] = [];
   for (const m of active) {
-    const evaluated = atReference
-      ? atReferenceTemperature(m, problems)
-      : method === 'integrated'
-        ? integrated(m, t, problems, notes)
-        : constantCp(m, t, problems);
-    if (evaluated) species.push(evaluated);
+    const s = atReference ? atReferenceTemperature(m, problems) : method === 'integrated' ? integrated(m, t, problems, notes) : constantCp(m, t, problems);
+    if (s) evaluated.push([m, s]);
   }
   if (problems.length > 0) throw new ReactionThermoDataError(t, problems);
+  const species = evaluated.map(([, s]) => s);
 
-  const nu = (s: { coefficient: Fraction }) => s.coefficient.valueOf();
-  const enthalpy = species.reduce((sum, s) => sum + nu(s) * s.enthalpy, 0);
-  const referenceEnthalpy = active.every((m) => m.formationEnthalpy !== null)
-    ? active.reduce((sum, m) => sum + nu(m) * m.formationEnthalpy!.value, 0)
-    : null;
-  const gasAmountChange = active.filter((m) => m.phase === 'g').reduce((sum, m) => sum.add(m.coefficient), new Fraction(0));
+  const enthalpy = evaluated.reduce((sum, [m, s]) => sum + m.nu * s.enthalpy, 0);
+  const referenceEnthalpy = active.every((m) => m.formationEnthalpy !== null) ? active.reduce((sum, m) => sum + m.nu * m.formationEnthalpy!.value, 0) : null;
+  const gasAmountChange = active.filter((m) => m.phase === 'g').reduce((sum, m) => sum.add(m.coefficient), ZERO);
   const internalEnergy = enthalpy - (gasAmountChange.valueOf() * GAS_CONSTANT * t) / 1000;
 
   const entropyMissing = species.filter((s) => s.entropy === null).map((s) => s.species);
-  const entropy = entropyMissing.length === 0 ? species.reduce((sum, s) => sum + nu(s) * s.entropy!, 0) : null;
+  const entropy = entropyMissing.length === 0 ? evaluated.reduce((sum, [m, s]) => sum + m.nu * s.entropy!, 0) : null;
   const gibbsEnergy = entropy === null ? null : enthalpy - (t * entropy) / 1000;
   const lnK = gibbsEnergy === null ? null : (-gibbsEnergy * 1000) / (GAS_CONSTANT * t);
   const k = lnK === null ? null : Math.exp(lnK);
@@ -293,10 +293,10 @@ export function reactionPropertiesAt(terms: readonly ReactionThermoTerm[], optio
 
   const contributions: UncertaintyContribution[] = [];
   const uncertaintyMissing: string[] = [];
-  for (const s of species) {
-    const u = s.enthalpyBasis === 'model-absolute' ? null : (active.find((m) => m.species === s.species && m.phase === s.phase)!.formationEnthalpy?.standardUncertainty ?? null);
+  for (const [m, s] of evaluated) {
+    const u = s.enthalpyBasis === 'model-absolute' ? null : (m.formationEnthalpy?.standardUncertainty ?? null);
     if (u === null) uncertaintyMissing.push(s.species);
-    else contributions.push({ species: s.species, phase: s.phase, coefficient: s.coefficient, standardUncertainty: u, contribution: nu(s) * u, varianceShare: 0 });
+    else contributions.push({ species: s.species, phase: s.phase, coefficient: s.coefficient, standardUncertainty: u, contribution: m.nu * u, varianceShare: 0 });
   }
   const variance = contributions.reduce((sum, c) => sum + c.contribution ** 2, 0);
   for (const c of contributions) c.varianceShare = variance > 0 ? c.contribution ** 2 / variance : 0;
@@ -334,79 +334,86 @@ function outOfRange(m: MergedTerm, temperature: number): ReactionDataProblem {
   return { kind: 'out-of-range', species: m.species, phase: m.phase, temperature, range: { ...m.model!.range } };
 }
 
-function base(m: MergedTerm): Pick<SpeciesAtTemperature, 'species' | 'phase' | 'coefficient'> {
-  return { species: m.species, phase: m.phase, coefficient: m.coefficient };
+const missing = (kind: 'no-model' | 'no-enthalpy', m: MergedTerm): ReactionDataProblem => ({ kind, species: m.species, phase: m.phase });
+
+interface EntropyValue {
+  value: number | null;
+  basis: EntropyBasis | null;
+}
+const NO_ENTROPY: EntropyValue = { value: null, basis: null };
+
+// Built with every property spelled out: object spread here was the main cost of a call.
+function speciesResult(
+  m: MergedTerm,
+  enthalpyBasis: EnthalpyBasis,
+  enthalpy: number,
+  increment: number | null,
+  entropy: EntropyValue,
+  heatCapacity298: number | null,
+  crossings: ThermoCrossing[] | null,
+): SpeciesAtTemperature {
+  return {
+    species: m.species,
+    phase: m.phase,
+    coefficient: m.coefficient,
+    enthalpyBasis,
+    enthalpy,
+    increment,
+    entropy: entropy.value,
+    entropyBasis: entropy.basis,
+    heatCapacity298,
+    crossings,
+  };
 }
 
 function atReferenceTemperature(m: MergedTerm, problems: ReactionDataProblem[]): SpeciesAtTemperature | null {
   const t = REFERENCE_TEMPERATURE;
   const formationModel = m.model?.scale === 'formation' && covers(m.model, t) ? m.model : null;
-  let entropy: number | null = null;
-  let entropyBasis: EntropyBasis | null = null;
-  if (m.entropy !== null) [entropy, entropyBasis] = [m.entropy, 'value'];
-  else if (formationModel) [entropy, entropyBasis] = [absoluteEntropy(formationModel, t), 'model-absolute'];
-  const common = { ...base(m), increment: 0, entropy, entropyBasis, heatCapacity298: null, crossings: [] };
-  if (m.formationEnthalpy) return { ...common, enthalpyBasis: 'value', enthalpy: m.formationEnthalpy.value };
-  if (formationModel) return { ...common, enthalpyBasis: 'model-absolute', enthalpy: absoluteEnthalpy(formationModel, t), increment: null };
-  problems.push(m.model?.scale === 'formation' ? outOfRange(m, t) : { kind: 'no-enthalpy', species: m.species, phase: m.phase });
+  const entropy: EntropyValue =
+    m.entropy !== null
+      ? { value: m.entropy, basis: 'value' }
+      : formationModel
+        ? { value: absoluteEntropy(formationModel, t), basis: 'model-absolute' }
+        : NO_ENTROPY;
+  if (m.formationEnthalpy) return speciesResult(m, 'value', m.formationEnthalpy.value, 0, entropy, null, []);
+  if (formationModel) return speciesResult(m, 'model-absolute', absoluteEnthalpy(formationModel, t), null, entropy, null, []);
+  problems.push(m.model?.scale === 'formation' ? outOfRange(m, t) : missing('no-enthalpy', m));
   return null;
 }
 
 function integrated(m: MergedTerm, t: number, problems: ReactionDataProblem[], notes: string[]): SpeciesAtTemperature | null {
   const p = m.model;
   if (!p) {
-    problems.push(m.formationEnthalpy ? { kind: 'no-model', species: m.species, phase: m.phase } : { kind: 'no-enthalpy', species: m.species, phase: m.phase });
+    problems.push(missing(m.formationEnthalpy ? 'no-model' : 'no-enthalpy', m));
     return null;
   }
-  const coversT = covers(p, t);
-  const coversReference = covers(p, REFERENCE_TEMPERATURE);
-  if (!coversT) {
+  if (!covers(p, t)) {
     problems.push(outOfRange(m, t));
     return null;
   }
-  if (m.formationEnthalpy && coversReference) {
+  if (m.formationEnthalpy && covers(p, REFERENCE_TEMPERATURE)) {
     const increment = enthalpyIncrement(p, t);
-    let entropy: number | null = null;
-    let entropyBasis: EntropyBasis | null = null;
-    if (m.entropy !== null) [entropy, entropyBasis] = [m.entropy + entropyChange(p, REFERENCE_TEMPERATURE, t), 'value+model'];
-    else if (p.scale === 'formation') [entropy, entropyBasis] = [absoluteEntropy(p, t), 'model-absolute'];
-    return {
-      ...base(m),
-      enthalpyBasis: 'value+increment',
-      enthalpy: m.formationEnthalpy.value + increment,
-      increment,
-      entropy,
-      entropyBasis,
-      heatCapacity298: null,
-      crossings: crossingsBetween(p, REFERENCE_TEMPERATURE, t),
-    };
+    const entropy: EntropyValue =
+      m.entropy !== null
+        ? { value: m.entropy + entropyChange(p, REFERENCE_TEMPERATURE, t), basis: 'value+model' }
+        : p.scale === 'formation'
+          ? { value: absoluteEntropy(p, t), basis: 'model-absolute' }
+          : NO_ENTROPY;
+    return speciesResult(m, 'value+increment', m.formationEnthalpy.value + increment, increment, entropy, null, crossingsBetween(p, REFERENCE_TEMPERATURE, t));
   }
   if (p.scale === 'formation') {
     if (m.formationEnthalpy)
       notes.push(`${m.species}: its model does not reach 298.15 K, so H°(T) comes from the model alone and its ΔfH°(298.15 K) is not used.`);
-    return {
-      ...base(m),
-      enthalpyBasis: 'model-absolute',
-      enthalpy: absoluteEnthalpy(p, t),
-      increment: null,
-      entropy: absoluteEntropy(p, t),
-      entropyBasis: 'model-absolute',
-      heatCapacity298: null,
-      crossings: [],
-    };
+    return speciesResult(m, 'model-absolute', absoluteEnthalpy(p, t), null, { value: absoluteEntropy(p, t), basis: 'model-absolute' }, null, []);
   }
-  problems.push(m.formationEnthalpy ? outOfRange(m, REFERENCE_TEMPERATURE) : { kind: 'no-enthalpy', species: m.species, phase: m.phase });
+  problems.push(m.formationEnthalpy ? outOfRange(m, REFERENCE_TEMPERATURE) : missing('no-enthalpy', m));
   return null;
 }
 
 function constantCp(m: MergedTerm, t: number, problems: ReactionDataProblem[]): SpeciesAtTemperature | null {
   const p = m.model;
-  if (!m.formationEnthalpy) {
-    problems.push({ kind: 'no-enthalpy', species: m.species, phase: m.phase });
-    return null;
-  }
-  if (!p) {
-    problems.push({ kind: 'no-model', species: m.species, phase: m.phase });
+  if (!m.formationEnthalpy || !p) {
+    problems.push(missing(m.formationEnthalpy ? 'no-model' : 'no-enthalpy', m));
     return null;
   }
   if (!covers(p, REFERENCE_TEMPERATURE)) {
@@ -414,20 +421,13 @@ function constantCp(m: MergedTerm, t: number, problems: ReactionDataProblem[]): 
     return null;
   }
   const cp = heatCapacity(p, REFERENCE_TEMPERATURE);
-  let entropy: number | null = null;
-  let entropyBasis: EntropyBasis | null = null;
   const logRatio = Math.log(t / REFERENCE_TEMPERATURE);
-  if (m.entropy !== null) [entropy, entropyBasis] = [m.entropy + cp * logRatio, 'value+constant-cp'];
-  else if (p.scale === 'formation') [entropy, entropyBasis] = [absoluteEntropy(p, REFERENCE_TEMPERATURE) + cp * logRatio, 'model-absolute+constant-cp'];
+  const entropy: EntropyValue =
+    m.entropy !== null
+      ? { value: m.entropy + cp * logRatio, basis: 'value+constant-cp' }
+      : p.scale === 'formation'
+        ? { value: absoluteEntropy(p, REFERENCE_TEMPERATURE) + cp * logRatio, basis: 'model-absolute+constant-cp' }
+        : NO_ENTROPY;
   const increment = (cp * (t - REFERENCE_TEMPERATURE)) / 1000;
-  return {
-    ...base(m),
-    enthalpyBasis: 'value+constant-cp',
-    enthalpy: m.formationEnthalpy.value + increment,
-    increment,
-    entropy,
-    entropyBasis,
-    heatCapacity298: cp,
-    crossings: covers(p, t) ? crossingsBetween(p, REFERENCE_TEMPERATURE, t) : null,
-  };
+  return speciesResult(m, 'value+constant-cp', m.formationEnthalpy.value + increment, increment, entropy, cp, covers(p, t) ? crossingsBetween(p, REFERENCE_TEMPERATURE, t) : null);
 }
