@@ -44,6 +44,7 @@ export interface ReactionThermoTerm {
 /** How ΔrH°(T) is obtained: by integrating each species' model (default), or the constant-Cp estimate. */
 export type KirchhoffMethod = 'integrated' | 'constant-cp';
 
+/** What to compute: the temperature and, optionally, the method. */
 export interface ReactionThermoOptions {
   /** T in K, finite and above 0 K. */
   temperature: number;

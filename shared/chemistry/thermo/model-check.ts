@@ -85,6 +85,7 @@ function heatCapacityModelIssues(model: HeatCapacityModel, path: FieldPath): The
  * schema of shared/schemas/thermo.ts applies the same rules.
  */
 export function thermoModelIssues(model: SpeciesThermoModel): ThermoModelIssue[] {
+  if (typeof model !== 'object' || model === null) return [{ path: [], message: 'a model is an object with species, scale and forms' }];
   const issues: ThermoModelIssue[] = [];
   if (typeof model.species !== 'string' || model.species.trim() === '') issues.push({ path: ['species'], message: 'species must name the species' });
   if (model.scale !== 'formation' && model.scale !== 'relative') issues.push({ path: ['scale'], message: "scale must be 'formation' or 'relative'" });
@@ -95,6 +96,11 @@ export function thermoModelIssues(model: SpeciesThermoModel): ThermoModelIssue[]
   let previousMax: number | null = null;
   model.forms.forEach((form, i) => {
     const path: FieldPath = ['forms', i];
+    if (typeof form !== 'object' || form === null) {
+      issues.push({ path, message: 'a form is an object with form, label and model' });
+      previousMax = null;
+      return;
+    }
     const modelIssues = heatCapacityModelIssues(form.model, [...path, 'model']);
     issues.push(...modelIssues);
     const bounds = modelIssues.length === 0 ? modelBounds(form.model) : null;
