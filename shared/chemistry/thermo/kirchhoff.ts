@@ -258,6 +258,7 @@ const covers = (p: PreparedThermoModel, t: number) => t >= p.range.min && t <= p
  * range), that has no model, or that has no enthalpy at all.
  */
 export function reactionPropertiesAt(terms: readonly ReactionThermoTerm[], options: ReactionThermoOptions): ReactionThermoResult {
+  if (typeof options !== 'object' || options === null) throw new ThermoInputError('options with a temperature in K are required', ['temperature']);
   const t = options.temperature;
   assertTemperature(t, ['temperature']);
   const method: KirchhoffMethod = options.method ?? 'integrated';
