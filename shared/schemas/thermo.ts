@@ -14,19 +14,42 @@ import type { HeatCapacityModel, SpeciesThermoModel } from '../chemistry/thermo/
 /** A temperature in K: finite, above 0 K. */
 export const kelvinSchema = z.number().positive('must be above 0 K');
 
-const coefficientRows = (count: number) => z.array(z.array(z.number()).length(count, `needs exactly ${count} coefficients`)).min(1);
+const coefficientRows = (count: number) =>
+  z.array(z.array(z.number()).length(count, `needs exactly ${count} coefficients`)).min(1);
 
-export const nasa7ModelSchema = z.strictObject({ kind: z.literal('nasa7'), ranges: z.array(kelvinSchema).min(2), coefficients: coefficientRows(7) });
-export const nasa9ModelSchema = z.strictObject({ kind: z.literal('nasa9'), ranges: z.array(kelvinSchema).min(2), coefficients: coefficientRows(9) });
-export const shomateModelSchema = z.strictObject({ kind: z.literal('shomate'), ranges: z.array(kelvinSchema).min(2), coefficients: coefficientRows(8) });
+export const nasa7ModelSchema = z.strictObject({
+  kind: z.literal('nasa7'),
+  ranges: z.array(kelvinSchema).min(2),
+  coefficients: coefficientRows(7),
+});
+export const nasa9ModelSchema = z.strictObject({
+  kind: z.literal('nasa9'),
+  ranges: z.array(kelvinSchema).min(2),
+  coefficients: coefficientRows(9),
+});
+export const shomateModelSchema = z.strictObject({
+  kind: z.literal('shomate'),
+  ranges: z.array(kelvinSchema).min(2),
+  coefficients: coefficientRows(8),
+});
 export const cpTableModelSchema = z.strictObject({
   kind: z.literal('cp-table'),
   points: z.array(z.tuple([kelvinSchema, z.number().positive('Cp must be above 0')])).min(2),
 });
-export const constantCpModelSchema = z.strictObject({ kind: z.literal('constant'), cp: z.number().positive('Cp must be above 0'), range: z.tuple([kelvinSchema, kelvinSchema]) });
+export const constantCpModelSchema = z.strictObject({
+  kind: z.literal('constant'),
+  cp: z.number().positive('Cp must be above 0'),
+  range: z.tuple([kelvinSchema, kelvinSchema]),
+});
 
 /** One heat-capacity model, by `kind`. */
-export const heatCapacityModelSchema = z.discriminatedUnion('kind', [nasa7ModelSchema, nasa9ModelSchema, shomateModelSchema, cpTableModelSchema, constantCpModelSchema]);
+export const heatCapacityModelSchema = z.discriminatedUnion('kind', [
+  nasa7ModelSchema,
+  nasa9ModelSchema,
+  shomateModelSchema,
+  cpTableModelSchema,
+  constantCpModelSchema,
+]);
 
 export const statedTransitionSchema = z.strictObject({ temperature: kelvinSchema, enthalpy: z.number() });
 
@@ -46,7 +69,8 @@ const speciesThermoModelShape = {
 };
 
 function crossFieldRules(model: SpeciesThermoModel, ctx: z.RefinementCtx): void {
-  for (const issue of thermoModelIssues(model)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+  for (const issue of thermoModelIssues(model))
+    ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
 }
 
 /** A species' model as the core evaluates it (species key, scale, forms). */

@@ -15,9 +15,34 @@ const SPECIES: [string, string, string, [string | null, string][]][] = [
   ['-1/2', 'N2(g)', 'g', [[null, 'N2']]],
   ['3/2', 'H2(g)', 'g', [[null, 'H2']]],
   ['-1', 'SO2(g)', 'g', [[null, 'SO2']]],
-  ['1', 'KOH(cr)', 'cr', [['α', 'KOH(a)'], ['β', 'KOH(b)'], [null, 'KOH(L)']]],
-  ['-1', 'ZnSO4(cr)', 'cr', [['α', 'ZnSO4(a)'], ['β', 'ZnSO4(b)']]],
-  ['1/3', 'Li2O(cr)', 'cr', [[null, 'Li2O(s)'], [null, 'Li2O(L)']]],
+  [
+    '1',
+    'KOH(cr)',
+    'cr',
+    [
+      ['α', 'KOH(a)'],
+      ['β', 'KOH(b)'],
+      [null, 'KOH(L)'],
+    ],
+  ],
+  [
+    '-1',
+    'ZnSO4(cr)',
+    'cr',
+    [
+      ['α', 'ZnSO4(a)'],
+      ['β', 'ZnSO4(b)'],
+    ],
+  ],
+  [
+    '1/3',
+    'Li2O(cr)',
+    'cr',
+    [
+      [null, 'Li2O(s)'],
+      [null, 'Li2O(L)'],
+    ],
+  ],
 ];
 
 const terms: ReactionThermoTerm[] = SPECIES.map(([nu, species, phase, forms]) => {

@@ -77,10 +77,14 @@ export class ReactionThermoDataError extends ChemistryError {
     readonly temperature: number,
     readonly problems: ReactionDataProblem[],
   ) {
-    super('unprocessable', `The reaction cannot be evaluated at ${formatKelvin(temperature)}: ${problems.map(describeProblem).join('; ')}.`, {
-      temperature,
-      problems: problems.map((p) => ({ ...p })),
-    });
+    super(
+      'unprocessable',
+      `The reaction cannot be evaluated at ${formatKelvin(temperature)}: ${problems.map(describeProblem).join('; ')}.`,
+      {
+        temperature,
+        problems: problems.map((p) => ({ ...p })),
+      },
+    );
   }
 }
 

@@ -44,7 +44,14 @@ export {
   discontinuousJoints,
   crossingsBetween,
 } from './species-model';
-export type { PreparedThermoModel, ThermoModelInput, FormName, PhaseTransition, DiscontinuousJoint, ThermoCrossing } from './species-model';
+export type {
+  PreparedThermoModel,
+  ThermoModelInput,
+  FormName,
+  PhaseTransition,
+  DiscontinuousJoint,
+  ThermoCrossing,
+} from './species-model';
 export { reactionPropertiesAt, RSS_METHOD_TEXT } from './kirchhoff';
 export type {
   FormationEnthalpyInput,

@@ -64,7 +64,8 @@ export interface ReactionThermoOptions {
 export type EnthalpyBasis = 'value' | 'value+increment' | 'model-absolute' | 'value+constant-cp';
 
 /** Where a species' S°(T) came from; the same words as `EnthalpyBasis`, `value+model` for S° + [S(T) − S(298.15 K)]. */
-export type EntropyBasis = 'value' | 'value+model' | 'model-absolute' | 'value+constant-cp' | 'model-absolute+constant-cp';
+export type EntropyBasis =
+  'value' | 'value+model' | 'model-absolute' | 'value+constant-cp' | 'model-absolute+constant-cp';
 
 /** One species of the reaction after merging its terms. */
 export interface SpeciesAtTemperature {
@@ -172,18 +173,30 @@ interface MergedTerm {
 
 function checkTerm(term: ReactionThermoTerm, i: number): void {
   const path = (...rest: (string | number)[]) => ['terms', i, ...rest];
-  if (!(term.coefficient instanceof Fraction)) throw new ThermoInputError(`terms.${i}.coefficient must be an exact fraction`, path('coefficient'));
-  if (term.coefficient.n === 0n) throw new ThermoInputError(`terms.${i}.coefficient must not be zero`, path('coefficient'));
-  if (typeof term.species !== 'string' || term.species.trim() === '') throw new ThermoInputError(`terms.${i}.species must name the species`, path('species'));
+  if (!(term.coefficient instanceof Fraction))
+    throw new ThermoInputError(`terms.${i}.coefficient must be an exact fraction`, path('coefficient'));
+  if (term.coefficient.n === 0n)
+    throw new ThermoInputError(`terms.${i}.coefficient must not be zero`, path('coefficient'));
+  if (typeof term.species !== 'string' || term.species.trim() === '')
+    throw new ThermoInputError(`terms.${i}.species must name the species`, path('species'));
   const h = term.formationEnthalpy;
   if (h !== null) {
     if (typeof h.value !== 'number' || !Number.isFinite(h.value))
-      throw new ThermoInputError(`${term.species}: ΔfH°(298.15 K) must be a finite value in kJ/mol`, path('formationEnthalpy', 'value'));
+      throw new ThermoInputError(
+        `${term.species}: ΔfH°(298.15 K) must be a finite value in kJ/mol`,
+        path('formationEnthalpy', 'value'),
+      );
     if (h.standardUncertainty !== null && (!Number.isFinite(h.standardUncertainty) || h.standardUncertainty < 0))
-      throw new ThermoInputError(`${term.species}: the standard uncertainty must be a finite value ≥ 0 kJ/mol, or null`, path('formationEnthalpy', 'standardUncertainty'));
+      throw new ThermoInputError(
+        `${term.species}: the standard uncertainty must be a finite value ≥ 0 kJ/mol, or null`,
+        path('formationEnthalpy', 'standardUncertainty'),
+      );
   }
   if (term.entropy !== null && (typeof term.entropy !== 'number' || !Number.isFinite(term.entropy)))
-    throw new ThermoInputError(`${term.species}: S°(298.15 K) must be a finite value in J/(mol K), or null`, path('entropy'));
+    throw new ThermoInputError(
+      `${term.species}: S°(298.15 K) must be a finite value in J/(mol K), or null`,
+      path('entropy'),
+    );
 }
 
 function prepareTermModel(term: ReactionThermoTerm, i: number): PreparedThermoModel | null {
@@ -191,13 +204,19 @@ function prepareTermModel(term: ReactionThermoTerm, i: number): PreparedThermoMo
   try {
     return prepareThermoModel(term.model);
   } catch (err) {
-    if (err instanceof ThermoModelError) throw new ThermoModelError(err.species, err.issues.map((issue) => ({ ...issue, path: ['terms', i, 'model', ...issue.path] })));
+    if (err instanceof ThermoModelError)
+      throw new ThermoModelError(
+        err.species,
+        err.issues.map((issue) => ({ ...issue, path: ['terms', i, 'model', ...issue.path] })),
+      );
     throw err;
   }
 }
 
 function sameEnthalpy(a: FormationEnthalpyInput | null, b: FormationEnthalpyInput | null): boolean {
-  return a === b || (a !== null && b !== null && a.value === b.value && a.standardUncertainty === b.standardUncertainty);
+  return (
+    a === b || (a !== null && b !== null && a.value === b.value && a.standardUncertainty === b.standardUncertainty)
+  );
 }
 
 function sameModel(a: ThermoModelInput | null, b: ThermoModelInput | null): boolean {
@@ -229,9 +248,15 @@ function mergeTerms(terms: readonly ReactionThermoTerm[]): MergedTerm[] {
       models.set(key, term.model);
       return;
     }
-    const conflict = !sameEnthalpy(seen.formationEnthalpy, term.formationEnthalpy) || seen.entropy !== term.entropy || !sameModel(models.get(key) ?? null, term.model);
+    const conflict =
+      !sameEnthalpy(seen.formationEnthalpy, term.formationEnthalpy) ||
+      seen.entropy !== term.entropy ||
+      !sameModel(models.get(key) ?? null, term.model);
     if (conflict)
-      throw new ThermoInputError(`${term.species} appears in terms ${seen.firstIndex} and ${i} with different data; give each species one ΔfH°, S° and model`, ['terms', i]);
+      throw new ThermoInputError(
+        `${term.species} appears in terms ${seen.firstIndex} and ${i} with different data; give each species one ΔfH°, S° and model`,
+        ['terms', i],
+      );
     seen.coefficient = seen.coefficient.add(term.coefficient);
   });
   const merged = [...byKey.values()];
@@ -257,13 +282,19 @@ const covers = (p: PreparedThermoModel, t: number) => t >= p.range.min && t <= p
  * model; ReactionThermoDataError naming every species whose model does not cover T (with its
  * range), that has no model, or that has no enthalpy at all.
  */
-export function reactionPropertiesAt(terms: readonly ReactionThermoTerm[], options: ReactionThermoOptions): ReactionThermoResult {
-  if (typeof options !== 'object' || options === null) throw new ThermoInputError('options with a temperature in K are required', ['temperature']);
+export function reactionPropertiesAt(
+  terms: readonly ReactionThermoTerm[],
+  options: ReactionThermoOptions,
+): ReactionThermoResult {
+  if (typeof options !== 'object' || options === null)
+    throw new ThermoInputError('options with a temperature in K are required', ['temperature']);
   const t = options.temperature;
   assertTemperature(t, ['temperature']);
   const method: KirchhoffMethod = options.method ?? 'integrated';
-  if (method !== 'integrated' && method !== 'constant-cp') throw new ThermoInputError(`unknown method '${String(method)}'`, ['method']);
-  if (!Array.isArray(terms) || terms.length === 0) throw new ThermoInputError('a reaction needs at least one term', ['terms']);
+  if (method !== 'integrated' && method !== 'constant-cp')
+    throw new ThermoInputError(`unknown method '${String(method)}'`, ['method']);
+  if (!Array.isArray(terms) || terms.length === 0)
+    throw new ThermoInputError('a reaction needs at least one term', ['terms']);
 
   const merged = mergeTerms(terms);
   const active = merged.filter((m) => m.coefficient.n !== 0n);
@@ -274,14 +305,20 @@ export function reactionPropertiesAt(terms: readonly ReactionThermoTerm[], optio
   const problems: ReactionDataProblem[] = [];
   const evaluated: [MergedTerm, SpeciesAtTemperature][] = [];
   for (const m of active) {
-    const s = atReference ? atReferenceTemperature(m, problems) : method === 'integrated' ? integrated(m, t, problems, notes) : constantCp(m, t, problems);
+    const s = atReference
+      ? atReferenceTemperature(m, problems)
+      : method === 'integrated'
+        ? integrated(m, t, problems, notes)
+        : constantCp(m, t, problems);
     if (s) evaluated.push([m, s]);
   }
   if (problems.length > 0) throw new ReactionThermoDataError(t, problems);
   const species = evaluated.map(([, s]) => s);
 
   const enthalpy = evaluated.reduce((sum, [m, s]) => sum + m.nu * s.enthalpy, 0);
-  const referenceEnthalpy = active.every((m) => m.formationEnthalpy !== null) ? active.reduce((sum, m) => sum + m.nu * m.formationEnthalpy!.value, 0) : null;
+  const referenceEnthalpy = active.every((m) => m.formationEnthalpy !== null)
+    ? active.reduce((sum, m) => sum + m.nu * m.formationEnthalpy!.value, 0)
+    : null;
   const gasAmountChange = active.filter((m) => m.phase === 'g').reduce((sum, m) => sum.add(m.coefficient), ZERO);
   const internalEnergy = enthalpy - (gasAmountChange.valueOf() * GAS_CONSTANT * t) / 1000;
 
@@ -291,14 +328,23 @@ export function reactionPropertiesAt(terms: readonly ReactionThermoTerm[], optio
   const lnK = gibbsEnergy === null ? null : (-gibbsEnergy * 1000) / (GAS_CONSTANT * t);
   const k = lnK === null ? null : Math.exp(lnK);
   const equilibriumConstant = k !== null && Number.isFinite(k) && k > 0 ? k : null;
-  if (lnK !== null && equilibriumConstant === null) notes.push('K is beyond the range of ordinary numbers; use log10 K.');
+  if (lnK !== null && equilibriumConstant === null)
+    notes.push('K is beyond the range of ordinary numbers; use log10 K.');
 
   const contributions: UncertaintyContribution[] = [];
   const uncertaintyMissing: string[] = [];
   for (const [m, s] of evaluated) {
     const u = s.enthalpyBasis === 'model-absolute' ? null : (m.formationEnthalpy?.standardUncertainty ?? null);
     if (u === null) uncertaintyMissing.push(s.species);
-    else contributions.push({ species: s.species, phase: s.phase, coefficient: s.coefficient, standardUncertainty: u, contribution: m.nu * u, varianceShare: 0 });
+    else
+      contributions.push({
+        species: s.species,
+        phase: s.phase,
+        coefficient: s.coefficient,
+        standardUncertainty: u,
+        contribution: m.nu * u,
+        varianceShare: 0,
+      });
   }
   const variance = contributions.reduce((sum, c) => sum + c.contribution ** 2, 0);
   for (const c of contributions) c.varianceShare = variance > 0 ? c.contribution ** 2 / variance : 0;
@@ -307,7 +353,8 @@ export function reactionPropertiesAt(terms: readonly ReactionThermoTerm[], optio
     notes.unshift(
       'Constant-Cp estimate: each species’ Cp°(298.15 K) is held constant from 298.15 K to T; the temperature dependence of Cp° and any phase transitions are ignored.',
     );
-  if (uncertaintyMissing.length > 0) notes.push(`Uncertainty incomplete: no stated uncertainty for ${uncertaintyMissing.join(', ')}.`);
+  if (uncertaintyMissing.length > 0)
+    notes.push(`Uncertainty incomplete: no stated uncertainty for ${uncertaintyMissing.join(', ')}.`);
 
   return {
     temperature: t,
@@ -336,7 +383,11 @@ function outOfRange(m: MergedTerm, temperature: number): ReactionDataProblem {
   return { kind: 'out-of-range', species: m.species, phase: m.phase, temperature, range: { ...m.model!.range } };
 }
 
-const missing = (kind: 'no-model' | 'no-enthalpy', m: MergedTerm): ReactionDataProblem => ({ kind, species: m.species, phase: m.phase });
+const missing = (kind: 'no-model' | 'no-enthalpy', m: MergedTerm): ReactionDataProblem => ({
+  kind,
+  species: m.species,
+  phase: m.phase,
+});
 
 interface EntropyValue {
   value: number | null;
@@ -378,12 +429,18 @@ function atReferenceTemperature(m: MergedTerm, problems: ReactionDataProblem[]):
         ? { value: absoluteEntropy(formationModel, t), basis: 'model-absolute' }
         : NO_ENTROPY;
   if (m.formationEnthalpy) return speciesResult(m, 'value', m.formationEnthalpy.value, 0, entropy, null, []);
-  if (formationModel) return speciesResult(m, 'model-absolute', absoluteEnthalpy(formationModel, t), null, entropy, null, []);
+  if (formationModel)
+    return speciesResult(m, 'model-absolute', absoluteEnthalpy(formationModel, t), null, entropy, null, []);
   problems.push(m.model?.scale === 'formation' ? outOfRange(m, t) : missing('no-enthalpy', m));
   return null;
 }
 
-function integrated(m: MergedTerm, t: number, problems: ReactionDataProblem[], notes: string[]): SpeciesAtTemperature | null {
+function integrated(
+  m: MergedTerm,
+  t: number,
+  problems: ReactionDataProblem[],
+  notes: string[],
+): SpeciesAtTemperature | null {
   const p = m.model;
   if (!p) {
     problems.push(missing(m.formationEnthalpy ? 'no-model' : 'no-enthalpy', m));
@@ -401,12 +458,30 @@ function integrated(m: MergedTerm, t: number, problems: ReactionDataProblem[], n
         : p.scale === 'formation'
           ? { value: absoluteEntropy(p, t), basis: 'model-absolute' }
           : NO_ENTROPY;
-    return speciesResult(m, 'value+increment', m.formationEnthalpy.value + increment, increment, entropy, null, crossingsBetween(p, REFERENCE_TEMPERATURE, t));
+    return speciesResult(
+      m,
+      'value+increment',
+      m.formationEnthalpy.value + increment,
+      increment,
+      entropy,
+      null,
+      crossingsBetween(p, REFERENCE_TEMPERATURE, t),
+    );
   }
   if (p.scale === 'formation') {
     if (m.formationEnthalpy)
-      notes.push(`${m.species}: its model does not reach 298.15 K, so H°(T) comes from the model alone and its ΔfH°(298.15 K) is not used.`);
-    return speciesResult(m, 'model-absolute', absoluteEnthalpy(p, t), null, { value: absoluteEntropy(p, t), basis: 'model-absolute' }, null, []);
+      notes.push(
+        `${m.species}: its model does not reach 298.15 K, so H°(T) comes from the model alone and its ΔfH°(298.15 K) is not used.`,
+      );
+    return speciesResult(
+      m,
+      'model-absolute',
+      absoluteEnthalpy(p, t),
+      null,
+      { value: absoluteEntropy(p, t), basis: 'model-absolute' },
+      null,
+      [],
+    );
   }
   problems.push(m.formationEnthalpy ? outOfRange(m, REFERENCE_TEMPERATURE) : missing('no-enthalpy', m));
   return null;
@@ -431,5 +506,13 @@ function constantCp(m: MergedTerm, t: number, problems: ReactionDataProblem[]): 
         ? { value: absoluteEntropy(p, REFERENCE_TEMPERATURE) + cp * logRatio, basis: 'model-absolute+constant-cp' }
         : NO_ENTROPY;
   const increment = (cp * (t - REFERENCE_TEMPERATURE)) / 1000;
-  return speciesResult(m, 'value+constant-cp', m.formationEnthalpy.value + increment, increment, entropy, cp, covers(p, t) ? crossingsBetween(p, REFERENCE_TEMPERATURE, t) : null);
+  return speciesResult(
+    m,
+    'value+constant-cp',
+    m.formationEnthalpy.value + increment,
+    increment,
+    entropy,
+    cp,
+    covers(p, t) ? crossingsBetween(p, REFERENCE_TEMPERATURE, t) : null,
+  );
 }

@@ -37,11 +37,28 @@ export function nasa9HeatCapacity(a: readonly number[], t: number): number {
  */
 export function nasa9Enthalpy(a: readonly number[], t: number): number {
   const [a1, a2, a3, a4, a5, a6, a7, a8] = a as [number, number, number, number, number, number, number, number];
-  return (GAS_CONSTANT * (-a1 / t + a2 * Math.log(t) + t * (a3 + t * (a4 / 2 + t * (a5 / 3 + t * (a6 / 4 + t * (a7 / 5))))) + a8)) / 1000;
+  return (
+    (GAS_CONSTANT *
+      (-a1 / t + a2 * Math.log(t) + t * (a3 + t * (a4 / 2 + t * (a5 / 3 + t * (a6 / 4 + t * (a7 / 5))))) + a8)) /
+    1000
+  );
 }
 
 /** S° in J/(mol K) from NASA-9: S°/R = −a1T⁻²/2 − a2T⁻¹ + a3 ln T + a4T + a5T²/2 + a6T³/3 + a7T⁴/4 + a9. */
 export function nasa9Entropy(a: readonly number[], t: number): number {
-  const [a1, a2, a3, a4, a5, a6, a7, , a9] = a as [number, number, number, number, number, number, number, number, number];
-  return GAS_CONSTANT * (-a1 / (2 * t * t) - a2 / t + a3 * Math.log(t) + t * (a4 + t * (a5 / 2 + t * (a6 / 3 + t * (a7 / 4)))) + a9);
+  const [a1, a2, a3, a4, a5, a6, a7, , a9] = a as [
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+  ];
+  return (
+    GAS_CONSTANT *
+    (-a1 / (2 * t * t) - a2 / t + a3 * Math.log(t) + t * (a4 + t * (a5 / 2 + t * (a6 / 3 + t * (a7 / 4)))) + a9)
+  );
 }

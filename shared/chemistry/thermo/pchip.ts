@@ -46,7 +46,8 @@ export function monotoneCubic(x: readonly number[], y: readonly number[]): Monot
     slopes[n - 1] = endSlope(h[n - 2]!, h[n - 3]!, m[n - 2]!, m[n - 3]!);
   }
   const cumulative = [0];
-  for (let k = 0; k < n - 1; k++) cumulative.push(cumulative[k]! + pieceIntegral(y[k]!, y[k + 1]!, slopes[k]!, slopes[k + 1]!, h[k]!, h[k]!));
+  for (let k = 0; k < n - 1; k++)
+    cumulative.push(cumulative[k]! + pieceIntegral(y[k]!, y[k + 1]!, slopes[k]!, slopes[k + 1]!, h[k]!, h[k]!));
   return { x, y, slopes, cumulative };
 }
 
@@ -91,7 +92,10 @@ export function evaluateMonotoneCubic(f: MonotoneCubic, t: number): number {
 /** Exact ∫ from x[0] to t of the interpolant. */
 export function integrateMonotoneCubic(f: MonotoneCubic, t: number): number {
   const k = pieceIndex(f, t);
-  return f.cumulative[k]! + pieceIntegral(f.y[k]!, f.y[k + 1]!, f.slopes[k]!, f.slopes[k + 1]!, f.x[k + 1]! - f.x[k]!, t - f.x[k]!);
+  return (
+    f.cumulative[k]! +
+    pieceIntegral(f.y[k]!, f.y[k + 1]!, f.slopes[k]!, f.slopes[k + 1]!, f.x[k + 1]! - f.x[k]!, t - f.x[k]!)
+  );
 }
 
 /**

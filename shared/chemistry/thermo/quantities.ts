@@ -26,7 +26,14 @@ const GRAMS: Readonly<Record<MassUnit, number>> = { g: 1, kg: 1000, lb: KILOGRAM
 export type QuantityInput =
   | { kind: 'mass'; value: number; unit: MassUnit; /** g/mol */ molarMass: number }
   | { kind: 'amount'; value: number; unit: 'mol' }
-  | { kind: 'gas-volume'; value: number; unit: 'L'; /** K */ temperature: number; pressure: number; pressureUnit: PressureUnit };
+  | {
+      kind: 'gas-volume';
+      value: number;
+      unit: 'L';
+      /** K */ temperature: number;
+      pressure: number;
+      pressureUnit: PressureUnit;
+    };
 
 /** An amount of substance in mol, with how it was obtained in words. */
 export interface AmountOfSubstance {
@@ -37,14 +44,18 @@ export interface AmountOfSubstance {
 
 function positive(value: number, path: FieldPath, what: string, allowZero = false): void {
   if (typeof value !== 'number' || !Number.isFinite(value) || value < 0 || (!allowZero && value === 0))
-    throw new ThermoInputError(`${what} must be a finite number ${allowZero ? '≥ 0' : 'above 0'} (got ${String(value)})`, path);
+    throw new ThermoInputError(
+      `${what} must be a finite number ${allowZero ? '≥ 0' : 'above 0'} (got ${String(value)})`,
+      path,
+    );
 }
 
 /** Mass in grams from a value in g, kg or lb (lb exact: 453.592 37 g). */
 export function massInGrams(value: number, unit: MassUnit, path: FieldPath = ['mass']): number {
   positive(value, [...path, 'value'], 'mass', true);
   const factor = GRAMS[unit];
-  if (factor === undefined) throw new ThermoInputError(`unknown mass unit '${String(unit)}' (use g, kg or lb)`, [...path, 'unit']);
+  if (factor === undefined)
+    throw new ThermoInputError(`unknown mass unit '${String(unit)}' (use g, kg or lb)`, [...path, 'unit']);
   return value * factor;
 }
 
@@ -68,12 +79,22 @@ export function amountOfSubstance(input: QuantityInput, path: FieldPath = ['quan
       assertTemperature(input.temperature, [...path, 'temperature']);
       positive(input.pressure, [...path, 'pressure'], 'pressure');
       const pascals = PASCALS[input.pressureUnit];
-      if (pascals === undefined) throw new ThermoInputError(`unknown pressure unit '${String(input.pressureUnit)}' (use Pa, kPa, bar or atm)`, [...path, 'pressureUnit']);
+      if (pascals === undefined)
+        throw new ThermoInputError(`unknown pressure unit '${String(input.pressureUnit)}' (use Pa, kPa, bar or atm)`, [
+          ...path,
+          'pressureUnit',
+        ]);
       const amount = (input.pressure * pascals * input.value * 1e-3) / (GAS_CONSTANT * input.temperature);
-      return { amount, basis: `ideal-gas law n = pV/(RT) at ${input.temperature} K and ${input.pressure} ${input.pressureUnit}` };
+      return {
+        amount,
+        basis: `ideal-gas law n = pV/(RT) at ${input.temperature} K and ${input.pressure} ${input.pressureUnit}`,
+      };
     }
     default:
-      throw new ThermoInputError(`unknown quantity kind '${String((input as { kind?: unknown }).kind)}'`, [...path, 'kind']);
+      throw new ThermoInputError(`unknown quantity kind '${String((input as { kind?: unknown }).kind)}'`, [
+        ...path,
+        'kind',
+      ]);
   }
 }
 
@@ -85,7 +106,8 @@ export function idealGasMolarVolume(temperature: number, pressurePascals: number
 }
 
 function magnitude(coefficient: Fraction, path: FieldPath): number {
-  if (!(coefficient instanceof Fraction) || coefficient.equals(0)) throw new ThermoInputError('coefficient must be a non-zero exact fraction', path);
+  if (!(coefficient instanceof Fraction) || coefficient.equals(0))
+    throw new ThermoInputError('coefficient must be a non-zero exact fraction', path);
   return coefficient.abs().valueOf();
 }
 
@@ -145,7 +167,8 @@ export interface LimitingReactantResult {
  * @throws ThermoInputError for no reactants, a zero coefficient or a bad amount.
  */
 export function limitingReactant(reactants: readonly ReactantAmount[]): LimitingReactantResult {
-  if (!Array.isArray(reactants) || reactants.length === 0) throw new ThermoInputError('give the amount of at least one reactant', ['reactants']);
+  if (!Array.isArray(reactants) || reactants.length === 0)
+    throw new ThermoInputError('give the amount of at least one reactant', ['reactants']);
   const ratios = reactants.map((r, i) => {
     positive(r.amount, ['reactants', i, 'amount'], `amount of ${r.species}`, true);
     return r.amount / magnitude(r.coefficient, ['reactants', i, 'coefficient']);
@@ -155,7 +178,14 @@ export function limitingReactant(reactants: readonly ReactantAmount[]): Limiting
   const balances = reactants.map((r, i) => {
     const limiting = together(ratios[i]!);
     const consumed = limiting ? r.amount : r.coefficient.abs().valueOf() * extent;
-    return { species: r.species, coefficient: r.coefficient, initial: r.amount, consumed, remaining: limiting ? 0 : r.amount - consumed, limiting };
+    return {
+      species: r.species,
+      coefficient: r.coefficient,
+      initial: r.amount,
+      consumed,
+      remaining: limiting ? 0 : r.amount - consumed,
+      limiting,
+    };
   });
   return { extent, limiting: balances.filter((b) => b.limiting).map((b) => b.species), reactants: balances };
 }
@@ -177,10 +207,16 @@ export interface ReactionHeat {
  * Heat of a batch: Q = ξ·ΔrH (kJ, ξ in mol, ΔrH in kJ/mol of reaction as written), "released"
  * when ΔrH < 0 (exothermic), "absorbed" when ΔrH > 0.
  */
-export function reactionHeat(extent: number, reactionEnthalpy: number, standardUncertainty: number | null = null): ReactionHeat {
+export function reactionHeat(
+  extent: number,
+  reactionEnthalpy: number,
+  standardUncertainty: number | null = null,
+): ReactionHeat {
   positive(extent, ['extent'], 'extent of reaction', true);
-  if (typeof reactionEnthalpy !== 'number' || !Number.isFinite(reactionEnthalpy)) throw new ThermoInputError('ΔrH must be a finite value in kJ/mol', ['reactionEnthalpy']);
-  if (standardUncertainty !== null) positive(standardUncertainty, ['standardUncertainty'], 'standard uncertainty', true);
+  if (typeof reactionEnthalpy !== 'number' || !Number.isFinite(reactionEnthalpy))
+    throw new ThermoInputError('ΔrH must be a finite value in kJ/mol', ['reactionEnthalpy']);
+  if (standardUncertainty !== null)
+    positive(standardUncertainty, ['standardUncertainty'], 'standard uncertainty', true);
   const heat = extent * reactionEnthalpy;
   const direction = heat < 0 ? 'released' : heat > 0 ? 'absorbed' : 'none';
   return {
@@ -240,12 +276,16 @@ export interface FuelHeatingValues {
 export function fuelHeatingValues(input: FuelHeatingValueInput): FuelHeatingValues {
   const { combustionEnthalpy: dc, waterVaporizationEnthalpy: vap } = input;
   if (typeof dc !== 'number' || !Number.isFinite(dc) || dc >= 0)
-    throw new ThermoInputError('the combustion enthalpy must be a finite negative value in kJ/mol (heat given off)', ['combustionEnthalpy']);
+    throw new ThermoInputError('the combustion enthalpy must be a finite negative value in kJ/mol (heat given off)', [
+      'combustionEnthalpy',
+    ]);
   positive(vap, ['waterVaporizationEnthalpy'], 'vaporization enthalpy of water');
   positive(input.fuelMolarMass, ['fuelMolarMass'], 'molar mass of the fuel');
-  if (input.waterPhase !== 'l' && input.waterPhase !== 'g') throw new ThermoInputError("waterPhase must be 'l' or 'g'", ['waterPhase']);
+  if (input.waterPhase !== 'l' && input.waterPhase !== 'g')
+    throw new ThermoInputError("waterPhase must be 'l' or 'g'", ['waterPhase']);
   const nuFuel = magnitude(input.fuelCoefficient, ['fuelCoefficient']);
-  if (!(input.waterCoefficient instanceof Fraction)) throw new ThermoInputError('waterCoefficient must be an exact fraction', ['waterCoefficient']);
+  if (!(input.waterCoefficient instanceof Fraction))
+    throw new ThermoInputError('waterCoefficient must be an exact fraction', ['waterCoefficient']);
   const waterPerFuel = input.waterCoefficient.abs().valueOf() / nuFuel;
   const u = input.standardUncertainty ?? null;
   if (u !== null) positive(u, ['standardUncertainty'], 'standard uncertainty', true);
@@ -307,7 +347,8 @@ export interface BatchScreeningResult {
  * @throws ThermoInputError naming the field for a zero or negative mass or heat capacity.
  */
 export function batchScreening(input: BatchScreeningInput): BatchScreeningResult {
-  if (typeof input.heat !== 'number' || !Number.isFinite(input.heat)) throw new ThermoInputError('heat must be a finite value in kJ', ['heat']);
+  if (typeof input.heat !== 'number' || !Number.isFinite(input.heat))
+    throw new ThermoInputError('heat must be a finite value in kJ', ['heat']);
   const grams = massInGrams(input.batchMass.value, input.batchMass.unit, ['batchMass']);
   if (grams === 0) throw new ThermoInputError('batch mass must be above 0', ['batchMass', 'value']);
   positive(input.specificHeatCapacity, ['specificHeatCapacity'], 'specific heat capacity');

@@ -62,7 +62,15 @@ export function segmentsOf(model: HeatCapacityModel): Segment[] {
     }
     case 'constant': {
       const [min, max] = model.range;
-      return [{ min, max, heatCapacity: () => model.cp, enthalpy: (t) => (model.cp * (t - min)) / 1000, entropy: (t) => model.cp * Math.log(t / min) }];
+      return [
+        {
+          min,
+          max,
+          heatCapacity: () => model.cp,
+          enthalpy: (t) => (model.cp * (t - min)) / 1000,
+          entropy: (t) => model.cp * Math.log(t / min),
+        },
+      ];
     }
   }
 }

@@ -61,7 +61,12 @@ export function prepareThermoModel(model: ThermoModelInput): PreparedThermoModel
     [PREPARED]: true,
     species: model.species,
     scale: model.scale,
-    range: { min: extendedToReference ? REFERENCE_TEMPERATURE : statedMin, max: segments[segments.length - 1]!.max, statedMin, extendedToReference },
+    range: {
+      min: extendedToReference ? REFERENCE_TEMPERATURE : statedMin,
+      max: segments[segments.length - 1]!.max,
+      statedMin,
+      extendedToReference,
+    },
     forms: model.forms.map((f, index) => ({ index, form: f.form, label: f.label, transition: f.transition })),
     segments,
   };
@@ -83,7 +88,8 @@ export function assertTemperature(t: number, path: FieldPath = ['temperature']):
 
 function locate(p: PreparedThermoModel, t: number, path: FieldPath): number {
   assertTemperature(t, path);
-  if (t < p.range.min || t > p.range.max) throw new TemperatureOutOfRangeError({ species: p.species, temperature: t, range: { ...p.range } });
+  if (t < p.range.min || t > p.range.max)
+    throw new TemperatureOutOfRangeError({ species: p.species, temperature: t, range: { ...p.range } });
   for (let i = 0; i < p.segments.length; i++) if (t <= p.segments[i]!.max) return i;
   return p.segments.length - 1;
 }
@@ -130,7 +136,10 @@ export function heatCapacity(model: ThermoModelInput, t: number): number {
 export function absoluteEnthalpy(model: ThermoModelInput, t: number): number {
   const p = prepareThermoModel(model);
   if (p.scale !== 'formation')
-    throw new ThermoInputError(`${p.species}: a relative-scale model gives only H(T) − H(298.15 K), not an absolute enthalpy`, ['model', 'scale']);
+    throw new ThermoInputError(
+      `${p.species}: a relative-scale model gives only H(T) − H(298.15 K), not an absolute enthalpy`,
+      ['model', 'scale'],
+    );
   return p.segments[locate(p, t, ['temperature'])]!.enthalpy(t);
 }
 
@@ -142,7 +151,10 @@ export function absoluteEnthalpy(model: ThermoModelInput, t: number): number {
 export function absoluteEntropy(model: ThermoModelInput, t: number): number {
   const p = prepareThermoModel(model);
   if (p.scale !== 'formation')
-    throw new ThermoInputError(`${p.species}: a relative-scale model gives only S(T) − S(298.15 K); supply S°(298.15 K)`, ['model', 'scale']);
+    throw new ThermoInputError(
+      `${p.species}: a relative-scale model gives only S(T) − S(298.15 K); supply S°(298.15 K)`,
+      ['model', 'scale'],
+    );
   return p.segments[locate(p, t, ['temperature'])]!.entropy(t);
 }
 
@@ -258,8 +270,18 @@ function boundaries(p: PreparedThermoModel): ThermoCrossing[] {
     const upper = p.segments[i + 1]!;
     const t = lower.max;
     if (upper.form !== lower.form) {
-      const enthalpy = p.scale === 'formation' ? upper.enthalpy(upper.min) - lower.enthalpy(t) : p.forms[upper.form]!.transition!.enthalpy;
-      out.push({ kind: 'transition', temperature: t, from: formName(p, lower.form), to: formName(p, upper.form), enthalpy, entropy: (enthalpy * 1000) / t });
+      const enthalpy =
+        p.scale === 'formation'
+          ? upper.enthalpy(upper.min) - lower.enthalpy(t)
+          : p.forms[upper.form]!.transition!.enthalpy;
+      out.push({
+        kind: 'transition',
+        temperature: t,
+        from: formName(p, lower.form),
+        to: formName(p, upper.form),
+        enthalpy,
+        entropy: (enthalpy * 1000) / t,
+      });
     } else if (p.scale === 'formation') {
       out.push({
         kind: 'joint',
@@ -284,9 +306,14 @@ export function phaseTransitions(model: ThermoModelInput): PhaseTransition[] {
  * Joints inside one form where H jumps by more than `threshold` kJ/mol (default 0.1), with the
  * size of the jump. In the NASA TM-4513 file: ZnSO4(a) at 540 K and Li2O(s) at 1000 K.
  */
-export function discontinuousJoints(model: ThermoModelInput, threshold: number = JOINT_JUMP_THRESHOLD): DiscontinuousJoint[] {
+export function discontinuousJoints(
+  model: ThermoModelInput,
+  threshold: number = JOINT_JUMP_THRESHOLD,
+): DiscontinuousJoint[] {
   return boundaries(prepareThermoModel(model))
-    .filter((b): b is { kind: 'joint' } & DiscontinuousJoint => b.kind === 'joint' && Math.abs(b.enthalpyJump) > threshold)
+    .filter(
+      (b): b is { kind: 'joint' } & DiscontinuousJoint => b.kind === 'joint' && Math.abs(b.enthalpyJump) > threshold,
+    )
     .map(({ kind: _kind, ...j }) => j);
 }
 
@@ -304,7 +331,10 @@ export function crossingsBetween(model: ThermoModelInput, t1: number, t2: number
   const lo = Math.min(t1, t2);
   const hi = Math.max(t1, t2);
   const crossed = boundaries(p).filter(
-    (b) => b.temperature >= lo && b.temperature < hi && (b.kind === 'transition' || Math.abs(b.enthalpyJump) > JOINT_JUMP_THRESHOLD),
+    (b) =>
+      b.temperature >= lo &&
+      b.temperature < hi &&
+      (b.kind === 'transition' || Math.abs(b.enthalpyJump) > JOINT_JUMP_THRESHOLD),
   );
   return t2 >= t1 ? crossed : crossed.reverse();
 }

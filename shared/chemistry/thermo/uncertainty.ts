@@ -48,7 +48,11 @@ export function standardUncertainty(stated: StatedUncertainty): DerivedStandardU
         rule: `expanded uncertainty U with coverage factor k = ${stated.k}: u = U/k (GUM, JCGM 100:2008, 6.2)`,
       };
     case 'two-sigma':
-      return { u: stated.value / 2, kind: stated.kind, rule: 'stated as twice the standard deviation (of the mean): u = stated value / 2' };
+      return {
+        u: stated.value / 2,
+        kind: stated.kind,
+        rule: 'stated as twice the standard deviation (of the mean): u = stated value / 2',
+      };
     case 'interval':
       return {
         u: stated.value / 2,

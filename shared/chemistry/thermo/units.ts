@@ -13,7 +13,8 @@ export const CELSIUS_ZERO_IN_KELVIN = 273.15;
  * @throws ThermoInputError (field `temperature`) unless the result is finite and above 0 K.
  */
 export function toKelvin(value: number, unit: TemperatureUnit): number {
-  if (typeof value !== 'number' || !Number.isFinite(value)) throw new ThermoInputError(`temperature must be a finite number (got ${String(value)})`, ['temperature']);
+  if (typeof value !== 'number' || !Number.isFinite(value))
+    throw new ThermoInputError(`temperature must be a finite number (got ${String(value)})`, ['temperature']);
   let kelvin: number;
   switch (unit) {
     case 'K':
@@ -28,7 +29,10 @@ export function toKelvin(value: number, unit: TemperatureUnit): number {
     default:
       throw new ThermoInputError(`unknown temperature unit '${String(unit)}' (use K, °C or °F)`, ['unit']);
   }
-  if (!(kelvin > 0)) throw new ThermoInputError(`temperature must be above absolute zero (${value} ${unit} is ${kelvin} K)`, ['temperature']);
+  if (!(kelvin > 0))
+    throw new ThermoInputError(`temperature must be above absolute zero (${value} ${unit} is ${kelvin} K)`, [
+      'temperature',
+    ]);
   return kelvin;
 }
 
@@ -52,7 +56,8 @@ export function fromKelvin(kelvin: number, unit: TemperatureUnit): number {
 }
 
 function finite(value: number, field: string): void {
-  if (typeof value !== 'number' || !Number.isFinite(value)) throw new ThermoInputError(`${field} must be a finite number (got ${String(value)})`, [field]);
+  if (typeof value !== 'number' || !Number.isFinite(value))
+    throw new ThermoInputError(`${field} must be a finite number (got ${String(value)})`, [field]);
 }
 
 /** kJ/mol → kcal/mol with the thermochemical calorie (1 cal = 4.184 J exactly). Sign kept. */
@@ -69,7 +74,9 @@ export function kilocaloriesToKilojoules(kilocaloriesPerMole: number): number {
 
 function molarMassCheck(molarMass: number): void {
   if (typeof molarMass !== 'number' || !Number.isFinite(molarMass) || molarMass <= 0)
-    throw new ThermoInputError(`molar mass must be a finite value above 0 g/mol (got ${String(molarMass)})`, ['molarMass']);
+    throw new ThermoInputError(`molar mass must be a finite value above 0 g/mol (got ${String(molarMass)})`, [
+      'molarMass',
+    ]);
 }
 
 /**

@@ -22,7 +22,15 @@ const MODELS: Record<string, SpeciesThermoModel> = {
   'H2(g)': nasaModel('H2(g)', [[null, 'H2']]),
   'N2(g)': nasaModel('N2(g)', [[null, 'N2']]),
 };
-const LABEL: Record<string, string> = { 'CH4(g)': 'CH4', 'O2(g)': 'O2', 'CO2(g)': 'CO2', 'H2O(g)': 'H2O', 'H2O(l)': 'H2O(L)', 'H2(g)': 'H2', 'N2(g)': 'N2' };
+const LABEL: Record<string, string> = {
+  'CH4(g)': 'CH4',
+  'O2(g)': 'O2',
+  'CO2(g)': 'CO2',
+  'H2O(g)': 'H2O',
+  'H2O(l)': 'H2O(L)',
+  'H2(g)': 'H2',
+  'N2(g)': 'N2',
+};
 
 /** A term whose ΔfH° and S° at 298.15 K are the NASA polynomial values (independent evaluation). */
 function nasaTerm(coefficient: string, species: keyof typeof MODELS, u: number | null = null): ReactionThermoTerm {
@@ -37,7 +45,12 @@ function nasaTerm(coefficient: string, species: keyof typeof MODELS, u: number |
   };
 }
 
-const methaneToSteam = () => [nasaTerm('-1', 'CH4(g)'), nasaTerm('-2', 'O2(g)'), nasaTerm('1', 'CO2(g)'), nasaTerm('2', 'H2O(g)')];
+const methaneToSteam = () => [
+  nasaTerm('-1', 'CH4(g)'),
+  nasaTerm('-2', 'O2(g)'),
+  nasaTerm('1', 'CO2(g)'),
+  nasaTerm('2', 'H2O(g)'),
+];
 
 // Independent straight-line Kirchhoff sum on the fixture (NASA TM-4513 equations).
 function straightLine(t: number, steps: [number, string][]): number {
@@ -82,7 +95,10 @@ describe('reactionPropertiesAt: CH4 + 2 O2 → CO2 + 2 H2O(g)', () => {
     const steam = reactionPropertiesAt(methaneToSteam(), { temperature: 298.15 });
     expect(steam.gasAmountChange.equals(0)).toBe(true);
     expect(steam.internalEnergy).toBeCloseTo(steam.enthalpy, 12);
-    const liquid = reactionPropertiesAt([nasaTerm('-1', 'CH4(g)'), nasaTerm('-2', 'O2(g)'), nasaTerm('1', 'CO2(g)'), nasaTerm('2', 'H2O(l)')], { temperature: 298.15 });
+    const liquid = reactionPropertiesAt(
+      [nasaTerm('-1', 'CH4(g)'), nasaTerm('-2', 'O2(g)'), nasaTerm('1', 'CO2(g)'), nasaTerm('2', 'H2O(l)')],
+      { temperature: 298.15 },
+    );
     expect(liquid.gasAmountChange.equals(-2)).toBe(true);
     // RT = 2.479 kJ/mol at 298.15 K (domain notes §4, [calc]).
     expect(liquid.internalEnergy - liquid.enthalpy).toBeCloseTo(2 * 2.479, 2);
@@ -141,7 +157,10 @@ describe('reactionPropertiesAt: uncertainty', () => {
     expect(r.uncertainty.contributions.reduce((s, c) => s + c.varianceShare, 0)).toBeCloseTo(1, 12);
   });
   it('keeps the same u at 1000 K (models carry no stated uncertainty)', () => {
-    expect(reactionPropertiesAt(terms(), { temperature: 1000 }).uncertainty.standardUncertainty).toBeCloseTo(Math.sqrt(0.34 ** 2 + 0.13 ** 2 + 0.08 ** 2), 12);
+    expect(reactionPropertiesAt(terms(), { temperature: 1000 }).uncertainty.standardUncertainty).toBeCloseTo(
+      Math.sqrt(0.34 ** 2 + 0.13 ** 2 + 0.08 ** 2),
+      12,
+    );
   });
   it('never counts a missing uncertainty as zero: the result is incomplete and names the species', () => {
     const t = terms();
@@ -158,8 +177,22 @@ describe('reactionPropertiesAt: species without a 298.15 K value', () => {
   // Al(l) → Al(g) at 1000 K: Al(l) enters with H°(1000 K) of its formation-scale model (NASA AL(L)).
   it('uses H_abs(T) of a formation-scale model and says the uncertainty is incomplete', () => {
     const terms: ReactionThermoTerm[] = [
-      { coefficient: new Fraction(-1), species: 'Al(l)', phase: 'l', formationEnthalpy: null, entropy: null, model: nasaModel('Al(l)', [[null, 'AL(L)']]) },
-      { coefficient: new Fraction(1), species: 'Al(g)', phase: 'g', formationEnthalpy: { value: refH(entry('AL'), 298.15), standardUncertainty: 2 }, entropy: refS(entry('AL'), 298.15), model: nasaModel('Al(g)', [[null, 'AL']]) },
+      {
+        coefficient: new Fraction(-1),
+        species: 'Al(l)',
+        phase: 'l',
+        formationEnthalpy: null,
+        entropy: null,
+        model: nasaModel('Al(l)', [[null, 'AL(L)']]),
+      },
+      {
+        coefficient: new Fraction(1),
+        species: 'Al(g)',
+        phase: 'g',
+        formationEnthalpy: { value: refH(entry('AL'), 298.15), standardUncertainty: 2 },
+        entropy: refS(entry('AL'), 298.15),
+        model: nasaModel('Al(g)', [[null, 'AL']]),
+      },
     ];
     const r = reactionPropertiesAt(terms, { temperature: 1000 });
     expect(r.enthalpy).toBeCloseTo(refH(entry('AL'), 1000) - refH(entry('AL(L)'), 1000), 9);
@@ -174,7 +207,14 @@ describe('reactionPropertiesAt: species without a 298.15 K value', () => {
 
 describe('reactionPropertiesAt: merging, errors and input checks', () => {
   it('merges terms of the same species before summing', () => {
-    const split = [nasaTerm('-1', 'CH4(g)'), nasaTerm('-1', 'O2(g)'), nasaTerm('-3/2', 'O2(g)'), nasaTerm('1', 'CO2(g)'), nasaTerm('2', 'H2O(g)'), nasaTerm('1/2', 'O2(g)')];
+    const split = [
+      nasaTerm('-1', 'CH4(g)'),
+      nasaTerm('-1', 'O2(g)'),
+      nasaTerm('-3/2', 'O2(g)'),
+      nasaTerm('1', 'CO2(g)'),
+      nasaTerm('2', 'H2O(g)'),
+      nasaTerm('1/2', 'O2(g)'),
+    ];
     const r = reactionPropertiesAt(split, { temperature: 1000 });
     expect(r.enthalpy).toBeCloseTo(straightLine(1000, METHANE), 9);
     expect(r.species.map((s) => [s.species, s.coefficient.toFraction()])).toEqual([
@@ -183,7 +223,9 @@ describe('reactionPropertiesAt: merging, errors and input checks', () => {
       ['CO2(g)', '1'],
       ['H2O(g)', '2'],
     ]);
-    const cancelling = reactionPropertiesAt([...methaneToSteam(), nasaTerm('-1', 'N2(g)'), nasaTerm('1', 'N2(g)')], { temperature: 1000 });
+    const cancelling = reactionPropertiesAt([...methaneToSteam(), nasaTerm('-1', 'N2(g)'), nasaTerm('1', 'N2(g)')], {
+      temperature: 1000,
+    });
     expect(cancelling.cancelled).toEqual(['N2(g)']);
     expect(cancelling.enthalpy).toBeCloseTo(straightLine(1000, METHANE), 9);
   });
@@ -194,7 +236,14 @@ describe('reactionPropertiesAt: merging, errors and input checks', () => {
       nasaTerm('-2', 'O2(g)'),
       nasaTerm('1', 'CO2(g)'),
       nasaTerm('2', 'H2O(l)'),
-      { coefficient: new Fraction(1), species: 'X(cr)', phase: 'cr', formationEnthalpy: { value: -10, standardUncertainty: null }, entropy: null, model: null },
+      {
+        coefficient: new Fraction(1),
+        species: 'X(cr)',
+        phase: 'cr',
+        formationEnthalpy: { value: -10, standardUncertainty: null },
+        entropy: null,
+        model: null,
+      },
     ];
     try {
       reactionPropertiesAt(terms, { temperature: 700 });
@@ -204,7 +253,13 @@ describe('reactionPropertiesAt: merging, errors and input checks', () => {
       const e = err as ReactionThermoDataError;
       expect(e.code).toBe('unprocessable');
       expect(e.problems).toEqual([
-        { kind: 'out-of-range', species: 'H2O(l)', phase: 'l', temperature: 700, range: { min: 273.15, max: 600, statedMin: 273.15, extendedToReference: false } },
+        {
+          kind: 'out-of-range',
+          species: 'H2O(l)',
+          phase: 'l',
+          temperature: 700,
+          range: { min: 273.15, max: 600, statedMin: 273.15, extendedToReference: false },
+        },
         { kind: 'no-model', species: 'X(cr)', phase: 'cr' },
       ]);
       expect(e.message).toContain('H2O(l) has a heat-capacity model only from 273.15 K to 600 K');
@@ -227,15 +282,42 @@ describe('reactionPropertiesAt: merging, errors and input checks', () => {
     } catch (err) {
       expect((err as ThermoInputError).path).toEqual(['terms', 0, 'coefficient']);
     }
-    const conflicting = [nasaTerm('-1', 'CH4(g)'), { ...nasaTerm('1', 'CH4(g)'), formationEnthalpy: { value: -70, standardUncertainty: null } }];
+    const conflicting = [
+      nasaTerm('-1', 'CH4(g)'),
+      { ...nasaTerm('1', 'CH4(g)'), formationEnthalpy: { value: -70, standardUncertainty: null } },
+    ];
     expect(() => reactionPropertiesAt(conflicting, { temperature: 300 })).toThrow(/different data/);
-    const badModel = [{ ...nasaTerm('-1', 'CH4(g)'), model: { species: 'CH4(g)', scale: 'formation' as const, forms: [{ form: null, label: 'x', model: { kind: 'nasa7' as const, ranges: [200, 1000], coefficients: [[1, 2, 3]] } }] } }];
+    const badModel = [
+      {
+        ...nasaTerm('-1', 'CH4(g)'),
+        model: {
+          species: 'CH4(g)',
+          scale: 'formation' as const,
+          forms: [
+            {
+              form: null,
+              label: 'x',
+              model: { kind: 'nasa7' as const, ranges: [200, 1000], coefficients: [[1, 2, 3]] },
+            },
+          ],
+        },
+      },
+    ];
     try {
       reactionPropertiesAt(badModel, { temperature: 300 });
       expect.unreachable();
     } catch (err) {
       expect(err).toBeInstanceOf(ThermoModelError);
-      expect((err as ThermoModelError).issues[0]!.path).toEqual(['terms', 0, 'model', 'forms', 0, 'model', 'coefficients', 0]);
+      expect((err as ThermoModelError).issues[0]!.path).toEqual([
+        'terms',
+        0,
+        'model',
+        'forms',
+        0,
+        'model',
+        'coefficients',
+        0,
+      ]);
     }
   });
 });

@@ -35,7 +35,15 @@ export function nasaModel(species: string, forms: [form: string | null, label: s
     scale: 'formation',
     forms: forms.map(([form, label]) => {
       const e = entry(label);
-      return { form, label, model: { kind: e.model === 'NASA7' ? 'nasa7' : 'nasa9', ranges: [...e.ranges], coefficients: e.coefficients.map((c) => [...c]) } };
+      return {
+        form,
+        label,
+        model: {
+          kind: e.model === 'NASA7' ? 'nasa7' : 'nasa9',
+          ranges: [...e.ranges],
+          coefficients: e.coefficients.map((c) => [...c]),
+        },
+      };
     }),
   };
 }
@@ -50,24 +58,66 @@ function pick(e: NasaEntry, t: number): number[] {
 }
 export function refCp(e: NasaEntry, t: number): number {
   const a = pick(e, t);
-  if (e.model === 'NASA7') return R * (a[0]! + a[1]! * t + a[2]! * Math.pow(t, 2) + a[3]! * Math.pow(t, 3) + a[4]! * Math.pow(t, 4));
-  return R * (a[0]! * Math.pow(t, -2) + a[1]! / t + a[2]! + a[3]! * t + a[4]! * Math.pow(t, 2) + a[5]! * Math.pow(t, 3) + a[6]! * Math.pow(t, 4));
+  if (e.model === 'NASA7')
+    return R * (a[0]! + a[1]! * t + a[2]! * Math.pow(t, 2) + a[3]! * Math.pow(t, 3) + a[4]! * Math.pow(t, 4));
+  return (
+    R *
+    (a[0]! * Math.pow(t, -2) +
+      a[1]! / t +
+      a[2]! +
+      a[3]! * t +
+      a[4]! * Math.pow(t, 2) +
+      a[5]! * Math.pow(t, 3) +
+      a[6]! * Math.pow(t, 4))
+  );
 }
 /** H in kJ/mol. */
 export function refH(e: NasaEntry, t: number): number {
   const a = pick(e, t);
   let hOverRT: number;
-  if (e.model === 'NASA7') hOverRT = a[0]! + (a[1]! * t) / 2 + (a[2]! * Math.pow(t, 2)) / 3 + (a[3]! * Math.pow(t, 3)) / 4 + (a[4]! * Math.pow(t, 4)) / 5 + a[5]! / t;
+  if (e.model === 'NASA7')
+    hOverRT =
+      a[0]! +
+      (a[1]! * t) / 2 +
+      (a[2]! * Math.pow(t, 2)) / 3 +
+      (a[3]! * Math.pow(t, 3)) / 4 +
+      (a[4]! * Math.pow(t, 4)) / 5 +
+      a[5]! / t;
   else
     hOverRT =
-      -a[0]! * Math.pow(t, -2) + (a[1]! * Math.log(t)) / t + a[2]! + (a[3]! * t) / 2 + (a[4]! * Math.pow(t, 2)) / 3 + (a[5]! * Math.pow(t, 3)) / 4 + (a[6]! * Math.pow(t, 4)) / 5 + a[7]! / t;
+      -a[0]! * Math.pow(t, -2) +
+      (a[1]! * Math.log(t)) / t +
+      a[2]! +
+      (a[3]! * t) / 2 +
+      (a[4]! * Math.pow(t, 2)) / 3 +
+      (a[5]! * Math.pow(t, 3)) / 4 +
+      (a[6]! * Math.pow(t, 4)) / 5 +
+      a[7]! / t;
   return (hOverRT * R * t) / 1000;
 }
 export function refS(e: NasaEntry, t: number): number {
   const a = pick(e, t);
   if (e.model === 'NASA7')
-    return R * (a[0]! * Math.log(t) + a[1]! * t + (a[2]! * Math.pow(t, 2)) / 2 + (a[3]! * Math.pow(t, 3)) / 3 + (a[4]! * Math.pow(t, 4)) / 4 + a[6]!);
-  return R * ((-a[0]! * Math.pow(t, -2)) / 2 - a[1]! / t + a[2]! * Math.log(t) + a[3]! * t + (a[4]! * Math.pow(t, 2)) / 2 + (a[5]! * Math.pow(t, 3)) / 3 + (a[6]! * Math.pow(t, 4)) / 4 + a[8]!);
+    return (
+      R *
+      (a[0]! * Math.log(t) +
+        a[1]! * t +
+        (a[2]! * Math.pow(t, 2)) / 2 +
+        (a[3]! * Math.pow(t, 3)) / 3 +
+        (a[4]! * Math.pow(t, 4)) / 4 +
+        a[6]!)
+    );
+  return (
+    R *
+    ((-a[0]! * Math.pow(t, -2)) / 2 -
+      a[1]! / t +
+      a[2]! * Math.log(t) +
+      a[3]! * t +
+      (a[4]! * Math.pow(t, 2)) / 2 +
+      (a[5]! * Math.pow(t, 3)) / 3 +
+      (a[6]! * Math.pow(t, 4)) / 4 +
+      a[8]!)
+  );
 }
 /** H and S of one specific range i at T (for joints). */
 export function refRangeH(e: NasaEntry, i: number, t: number): number {

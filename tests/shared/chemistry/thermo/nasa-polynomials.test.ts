@@ -49,7 +49,12 @@ describe('NASA-7 evaluation', () => {
   it('gives the CODATA 1989 key values at 298.15 K that the report adopted', () => {
     // CODATA Key Values (Cox, Wagman & Medvedev, 1989), from memory: ΔfH°/kJ mol⁻¹ and S°/J K⁻¹ mol⁻¹.
     // Not independent of the NASA file (it adopted them), so only a check that we read it right.
-    const codata = { 'CO2(g)': [-393.51, 213.785], 'H2O(g)': [-241.826, 188.835], 'N2(g)': [0, 191.609], 'O2(g)': [0, 205.152] } as const;
+    const codata = {
+      'CO2(g)': [-393.51, 213.785],
+      'H2O(g)': [-241.826, 188.835],
+      'N2(g)': [0, 191.609],
+      'O2(g)': [0, 205.152],
+    } as const;
     for (const [key, label] of GASES) {
       if (!(key in codata)) continue;
       const [h, s] = codata[key as keyof typeof codata];
@@ -74,7 +79,8 @@ describe('NASA-7 against JANAF tables (Chase, NIST-JANAF Thermochemical Tables, 
   for (const [key, [label, values]] of Object.entries(janaf)) {
     it(`agrees with JANAF H − H298 for ${key} at 500 K and 1000 K within 0.01 kJ/mol`, () => {
       const model = nasaModel(key, [[null, label]]);
-      for (const [t, h] of Object.entries(values)) expect(Math.abs(enthalpyIncrement(model, Number(t)) - h)).toBeLessThan(0.01);
+      for (const [t, h] of Object.entries(values))
+        expect(Math.abs(enthalpyIncrement(model, Number(t)) - h)).toBeLessThan(0.01);
     });
   }
 });
@@ -85,7 +91,9 @@ describe('joints of multi-range polynomials', () => {
   const multiRange = Object.values(nasaEntries).filter((e) => e.ranges.length > 2);
 
   it('covers several species with joints', () => {
-    expect(multiRange.map((e) => e.name)).toEqual(expect.arrayContaining(['CH4', 'CO2', 'H2O', 'N2', 'O2', 'SO2', 'Li2O(s)', 'ZnSO4(a)']));
+    expect(multiRange.map((e) => e.name)).toEqual(
+      expect.arrayContaining(['CH4', 'CO2', 'H2O', 'N2', 'O2', 'SO2', 'Li2O(s)', 'ZnSO4(a)']),
+    );
   });
 
   for (const e of multiRange) {
@@ -136,7 +144,17 @@ describe('valid range', () => {
 
   it('does not extend any other start: a fit from 301 K or 273.15 K keeps its start', () => {
     const e = entry('SO2');
-    const shifted = { species: 'X(g)', scale: 'formation' as const, forms: [{ form: null, label: 'X', model: { kind: 'nasa7' as const, ranges: [301, 1000, 5000], coefficients: e.coefficients } }] };
+    const shifted = {
+      species: 'X(g)',
+      scale: 'formation' as const,
+      forms: [
+        {
+          form: null,
+          label: 'X',
+          model: { kind: 'nasa7' as const, ranges: [301, 1000, 5000], coefficients: e.coefficients },
+        },
+      ],
+    };
     expect(validRange(shifted).min).toBe(301);
     expect(() => enthalpyIncrement(shifted, 500)).toThrow(TemperatureOutOfRangeError);
     expect(validRange(nasaModel('H2O(l)', [[null, 'H2O(L)']])).min).toBe(273.15);
@@ -151,7 +169,11 @@ describe('valid range', () => {
       expect(err).toBeInstanceOf(TemperatureOutOfRangeError);
       const e = err as TemperatureOutOfRangeError;
       expect(e.code).toBe('unprocessable');
-      expect(e.entry).toEqual({ species: 'N2(g)', temperature: 6500, range: { min: 200, max: 6000, statedMin: 200, extendedToReference: false } });
+      expect(e.entry).toEqual({
+        species: 'N2(g)',
+        temperature: 6500,
+        range: { min: 200, max: 6000, statedMin: 200, extendedToReference: false },
+      });
       expect(e.message).toContain('N2(g)');
       expect(e.message).toContain('200 K to 6000 K');
     }
@@ -159,6 +181,7 @@ describe('valid range', () => {
 
   it('rejects temperatures that are not finite or not above 0 K', () => {
     const n2 = nasaModel('N2(g)', [[null, 'N2']]);
-    for (const t of [0, -5, Number.NaN, Number.POSITIVE_INFINITY]) expect(() => heatCapacity(n2, t)).toThrow(/finite temperature above 0 K/);
+    for (const t of [0, -5, Number.NaN, Number.POSITIVE_INFINITY])
+      expect(() => heatCapacity(n2, t)).toThrow(/finite temperature above 0 K/);
   });
 });

@@ -25,10 +25,20 @@ const SHOMATE_N2 = {
     [19.50583, 19.88705, -8.598535, 1.369784, 0.527601, -4.935202, 212.39, 0.0],
   ],
 };
-const SHOMATE_CO2 = { ranges: [298, 1200], coefficients: [[24.99735, 55.18696, -33.69137, 7.948387, -0.136638, -403.6075, 228.2431, -393.5224]] };
-const SHOMATE_H2O = { ranges: [500, 1700], coefficients: [[30.092, 6.832514, 6.793435, -2.53448, 0.082139, -250.881, 223.3967, -241.8264]] };
+const SHOMATE_CO2 = {
+  ranges: [298, 1200],
+  coefficients: [[24.99735, 55.18696, -33.69137, 7.948387, -0.136638, -403.6075, 228.2431, -393.5224]],
+};
+const SHOMATE_H2O = {
+  ranges: [500, 1700],
+  coefficients: [[30.092, 6.832514, 6.793435, -2.53448, 0.082139, -250.881, 223.3967, -241.8264]],
+};
 
-const shomate = (species: string, fit: { ranges: number[]; coefficients: number[][] }, scale: 'formation' | 'relative' = 'relative'): SpeciesThermoModel => ({
+const shomate = (
+  species: string,
+  fit: { ranges: number[]; coefficients: number[][] },
+  scale: 'formation' | 'relative' = 'relative',
+): SpeciesThermoModel => ({
   species,
   scale,
   forms: [{ form: null, label: 'NIST-JANAF Shomate', model: { kind: 'shomate', ...fit } }],
@@ -36,9 +46,39 @@ const shomate = (species: string, fit: { ranges: number[]; coefficients: number[
 
 // JANAF tabulated Cp°/J K⁻¹ mol⁻¹ (Chase 1998), typed from memory.
 const JANAF_CP: Record<string, [number, number][]> = {
-  'N2(g)': [[298.15, 29.124], [300, 29.125], [400, 29.249], [500, 29.58], [600, 30.11], [700, 30.754], [800, 31.433], [900, 32.09], [1000, 32.697]],
-  'CO2(g)': [[298.15, 37.129], [300, 37.221], [400, 41.325], [500, 44.627], [600, 47.321], [700, 49.564], [800, 51.434], [900, 52.999], [1000, 54.308]],
-  'H2O(g)': [[298.15, 33.59], [300, 33.596], [400, 34.262], [500, 35.226], [600, 36.325], [700, 37.495], [800, 38.721], [900, 39.987], [1000, 41.268]],
+  'N2(g)': [
+    [298.15, 29.124],
+    [300, 29.125],
+    [400, 29.249],
+    [500, 29.58],
+    [600, 30.11],
+    [700, 30.754],
+    [800, 31.433],
+    [900, 32.09],
+    [1000, 32.697],
+  ],
+  'CO2(g)': [
+    [298.15, 37.129],
+    [300, 37.221],
+    [400, 41.325],
+    [500, 44.627],
+    [600, 47.321],
+    [700, 49.564],
+    [800, 51.434],
+    [900, 52.999],
+    [1000, 54.308],
+  ],
+  'H2O(g)': [
+    [298.15, 33.59],
+    [300, 33.596],
+    [400, 34.262],
+    [500, 35.226],
+    [600, 36.325],
+    [700, 37.495],
+    [800, 38.721],
+    [900, 39.987],
+    [1000, 41.268],
+  ],
 };
 const cpTable = (species: string): SpeciesThermoModel => ({
   species,
@@ -55,13 +95,16 @@ describe('Shomate models (NIST-JANAF fits, from memory) against NASA TM-4513', (
       [shomate('N2(g)', SHOMATE_N2), 'N2'],
       [shomate('CO2(g)', SHOMATE_CO2), 'CO2'],
     ] as const) {
-      for (const t of [500, 1000]) expect(Math.abs(enthalpyIncrement(model, t) - nasaIncrement(label, t))).toBeLessThan(0.02);
+      for (const t of [500, 1000])
+        expect(Math.abs(enthalpyIncrement(model, t) - nasaIncrement(label, t))).toBeLessThan(0.02);
     }
   });
 
   it('H2O(g) from 500 K: H(1000 K) − H(500 K) within 0.02 kJ/mol, and no increment from 298.15 K (outside the fit)', () => {
     const model = shomate('H2O(g)', SHOMATE_H2O);
-    expect(Math.abs(enthalpyChange(model, 500, 1000) - (nasaIncrement('H2O', 1000) - nasaIncrement('H2O', 500)))).toBeLessThan(0.02);
+    expect(
+      Math.abs(enthalpyChange(model, 500, 1000) - (nasaIncrement('H2O', 1000) - nasaIncrement('H2O', 500))),
+    ).toBeLessThan(0.02);
     expect(() => enthalpyIncrement(model, 1000)).toThrow(TemperatureOutOfRangeError);
   });
 
@@ -95,7 +138,8 @@ describe('Cp tables (JANAF Cp°, from memory) against NASA TM-4513', () => {
   ] as const) {
     it(`${species}: H(T) − H(298.15 K) at 500 K and 1000 K within 0.02 kJ/mol`, () => {
       const model = cpTable(species);
-      for (const t of [500, 1000]) expect(Math.abs(enthalpyIncrement(model, t) - nasaIncrement(label, t))).toBeLessThan(0.02);
+      for (const t of [500, 1000])
+        expect(Math.abs(enthalpyIncrement(model, t) - nasaIncrement(label, t))).toBeLessThan(0.02);
     });
   }
 
@@ -111,12 +155,24 @@ describe('monotone cubic interpolation (PCHIP)', () => {
   // Reference: SciPy 1.17.1 `PchipInterpolator` and its `integrate`, an independent
   // implementation; ∫p/T by `scipy.integrate.quad` (epsrel 1e-14). Values computed offline.
   const N2 = JANAF_CP['N2(g)']!;
-  const PEAK: [number, number][] = [[200, 40], [250, 42], [300, 55], [310, 90], [330, 60], [400, 58], [600, 58], [700, 62]]; // invented, non-monotone, uneven
+  const PEAK: [number, number][] = [
+    [200, 40],
+    [250, 42],
+    [300, 55],
+    [310, 90],
+    [330, 60],
+    [400, 58],
+    [600, 58],
+    [700, 62],
+  ]; // invented, non-monotone, uneven
   const cases: [string, [number, number][], number[], [number, number, number, number][]][] = [
     [
       'N2 Cp table',
       N2,
-      [0.000527835582269238, 0.0006685241782053126, 0.0018041318681318544, 0.004075029036004645, 0.0058146507666098956, 0.006610370370370373, 0.0066781886227545014, 0.006310110759493683, 0.005819999999999972],
+      [
+        0.000527835582269238, 0.0006685241782053126, 0.0018041318681318544, 0.004075029036004645, 0.0058146507666098956,
+        0.006610370370370373, 0.0066781886227545014, 0.006310110759493683, 0.005819999999999972,
+      ],
       [
         [299.075, 29.124467465762187, 26.93991735192785, 0.09021704979798317],
         [607.3, 30.15300495798759, 9114.201146005595, 20.932847199499346],
@@ -133,9 +189,34 @@ describe('monotone cubic interpolation (PCHIP)', () => {
         [700, 62.00000000000001, 28240.228991462085, 68.54920607648205],
       ],
     ],
-    ['two points', [[300, 20], [500, 30]], [0.05, 0.05], [[400, 25, 2250, 6.438410362258905], [500, 30, 5000, 12.554128118829952]]],
+    [
+      'two points',
+      [
+        [300, 20],
+        [500, 30],
+      ],
+      [0.05, 0.05],
+      [
+        [400, 25, 2250, 6.438410362258905],
+        [500, 30, 5000, 12.554128118829952],
+      ],
+    ],
     // End slope limited to 3·m0 where the data turn (invented points).
-    ['turning end', [[300, 10], [310, 11], [311, 0.5], [400, 3]], [0.30000000000000004, 0, 0, 0.08426966292134831], [[305, 10.875, 52.65625, NaN], [310.5, 5.75, 112.015625, NaN], [350, 0.7103603137159222, 134.80101305873023, NaN]]],
+    [
+      'turning end',
+      [
+        [300, 10],
+        [310, 11],
+        [311, 0.5],
+        [400, 3],
+      ],
+      [0.30000000000000004, 0, 0, 0.08426966292134831],
+      [
+        [305, 10.875, 52.65625, NaN],
+        [310.5, 5.75, 112.015625, NaN],
+        [350, 0.7103603137159222, 134.80101305873023, NaN],
+      ],
+    ],
   ];
   for (const [name, points, slopes, values] of cases) {
     it(`${name}: slopes, values, ∫p dT and ∫p/T dT agree with SciPy`, () => {
@@ -171,7 +252,11 @@ describe('monotone cubic interpolation (PCHIP)', () => {
 
 describe('constant Cp', () => {
   it('H = Cp·ΔT and S = Cp·ln(T2/T1) (definition)', () => {
-    const model: SpeciesThermoModel = { species: 'X(l)', scale: 'relative', forms: [{ form: null, label: 'x', model: { kind: 'constant', cp: 75.3, range: [273.15, 373.15] } }] };
+    const model: SpeciesThermoModel = {
+      species: 'X(l)',
+      scale: 'relative',
+      forms: [{ form: null, label: 'x', model: { kind: 'constant', cp: 75.3, range: [273.15, 373.15] } }],
+    };
     expect(enthalpyIncrement(model, 350)).toBeCloseTo((75.3 * (350 - 298.15)) / 1000, 12);
     expect(entropy(model, 350, 70)).toBeCloseTo(70 + 75.3 * Math.log(350 / 298.15), 12);
     expect(() => enthalpyIncrement(model, 400)).toThrow(TemperatureOutOfRangeError);

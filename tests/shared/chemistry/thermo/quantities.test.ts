@@ -22,18 +22,38 @@ describe('amounts and extent of reaction', () => {
   });
   it('ideal-gas molar volume RT/p is 24.79 L/mol at 298.15 K and 1 bar (IUPAC Green Book, 3rd ed., from memory)', () => {
     expect(idealGasMolarVolume(298.15, 1e5)).toBeCloseTo(24.79, 2);
-    const n = amountOfSubstance({ kind: 'gas-volume', value: 24.79, unit: 'L', temperature: 298.15, pressure: 1, pressureUnit: 'bar' });
+    const n = amountOfSubstance({
+      kind: 'gas-volume',
+      value: 24.79,
+      unit: 'L',
+      temperature: 298.15,
+      pressure: 1,
+      pressureUnit: 'bar',
+    });
     expect(n.amount).toBeCloseTo(1, 3);
     expect(n.basis).toMatch(/ideal-gas law/);
     // 22.414 L/mol at 273.15 K and 1 atm (older STP convention, from memory).
-    expect(amountOfSubstance({ kind: 'gas-volume', value: 22.414, unit: 'L', temperature: 273.15, pressure: 1, pressureUnit: 'atm' }).amount).toBeCloseTo(1, 4);
+    expect(
+      amountOfSubstance({
+        kind: 'gas-volume',
+        value: 22.414,
+        unit: 'L',
+        temperature: 273.15,
+        pressure: 1,
+        pressureUnit: 'atm',
+      }).amount,
+    ).toBeCloseTo(1, 4);
   });
   it('ξ = n/|ν| from a mass, an amount or a gas volume of any term', () => {
     // 1 kg of CH4 (M = 16.043 g/mol, CIAAW 2021 conventional weights) burnt: ξ = 62.33 mol.
-    expect(extentOfReaction(new Fraction(-1), { kind: 'mass', value: 1, unit: 'kg', molarMass: 16.043 }).extent).toBeCloseTo(1000 / 16.043, 10);
+    expect(
+      extentOfReaction(new Fraction(-1), { kind: 'mass', value: 1, unit: 'kg', molarMass: 16.043 }).extent,
+    ).toBeCloseTo(1000 / 16.043, 10);
     expect(extentOfReaction(new Fraction(2), { kind: 'amount', value: 3, unit: 'mol' }).extent).toBe(1.5);
     expect(extentOfReaction(new Fraction('-1/2'), { kind: 'amount', value: 3, unit: 'mol' }).extent).toBe(6);
-    expect(() => extentOfReaction(new Fraction(0), { kind: 'amount', value: 1, unit: 'mol' })).toThrow(ThermoInputError);
+    expect(() => extentOfReaction(new Fraction(0), { kind: 'amount', value: 1, unit: 'mol' })).toThrow(
+      ThermoInputError,
+    );
     expect(() => amountOfSubstance({ kind: 'mass', value: -1, unit: 'g', molarMass: 10 })).toThrow(/mass/);
   });
 });
@@ -103,7 +123,16 @@ describe('fuelHeatingValues', () => {
     expect(v.lower.perMole).toBeCloseTo(802.56, 10);
     expect(v.higher.perMole).toBeCloseTo(802.56 + 2 * 44.004, 10);
     expect(v.lower.standardUncertaintyPerMole).toBeCloseTo(0.4, 12);
-    expect(() => fuelHeatingValues({ combustionEnthalpy: 10, waterPhase: 'l', fuelCoefficient: new Fraction(1), waterCoefficient: new Fraction(2), fuelMolarMass: 16, waterVaporizationEnthalpy: 44 })).toThrow(/negative/);
+    expect(() =>
+      fuelHeatingValues({
+        combustionEnthalpy: 10,
+        waterPhase: 'l',
+        fuelCoefficient: new Fraction(1),
+        waterCoefficient: new Fraction(2),
+        fuelMolarMass: 16,
+        waterVaporizationEnthalpy: 44,
+      }),
+    ).toThrow(/negative/);
   });
 });
 
@@ -118,10 +147,23 @@ describe('batchScreening', () => {
   });
   it('carries cautions on rate, gas, decomposition, accumulation, scale and review', () => {
     const text = BATCH_SCREENING_CAUTIONS.join(' ');
-    for (const word of [/screening/i, /not how fast/, /gas/, /decomposition/, /accumulates/, /vessel grows/, /calorimetry/, /qualified/, /local codes/i]) expect(text).toMatch(word);
+    for (const word of [
+      /screening/i,
+      /not how fast/,
+      /gas/,
+      /decomposition/,
+      /accumulates/,
+      /vessel grows/,
+      /calorimetry/,
+      /qualified/,
+      /local codes/i,
+    ])
+      expect(text).toMatch(word);
   });
   it('rejects a zero batch mass or heat capacity, naming the field', () => {
-    expect(() => batchScreening({ heat: -1, batchMass: { value: 0, unit: 'kg' }, specificHeatCapacity: 4 })).toThrow(/batch mass/);
+    expect(() => batchScreening({ heat: -1, batchMass: { value: 0, unit: 'kg' }, specificHeatCapacity: 4 })).toThrow(
+      /batch mass/,
+    );
     try {
       batchScreening({ heat: -1, batchMass: { value: 1, unit: 'lb' }, specificHeatCapacity: 0 });
       expect.unreachable();

@@ -44,7 +44,10 @@ describe('polymorph sequence KOH(a) → KOH(b) → KOH(L) (NASA TM-4513)', () =>
     expect(crossed[0]).toMatchObject({ kind: 'transition', temperature: 516 });
     expect(crossingsBetween(koh, 298.15, 800).map((c) => c.temperature)).toEqual([516, 679]);
     expect(crossingsBetween(koh, 800, 298.15).map((c) => c.temperature)).toEqual([679, 516]);
-    expect(enthalpyChange(koh, 800, 298.15)).toBeCloseTo(-(refH(entry('KOH(L)'), 800) - refH(entry('KOH(a)'), 298.15)), 9);
+    expect(enthalpyChange(koh, 800, 298.15)).toBeCloseTo(
+      -(refH(entry('KOH(L)'), 800) - refH(entry('KOH(a)'), 298.15)),
+      9,
+    );
     // S: the entries' absolute S carry the transition entropy.
     expect(entropyChange(koh, 298.15, 600)).toBeCloseTo(refS(entry('KOH(b)'), 600) - refS(entry('KOH(a)'), 298.15), 9);
   });
@@ -120,14 +123,25 @@ describe('relative scale with stated transitions', () => {
     scale: 'relative',
     forms: [
       { form: 'α', label: 'Y-a', model: { kind: 'constant', cp: 50, range: [250, 400] } },
-      { form: 'β', label: 'Y-b', model: { kind: 'constant', cp: 60, range: [400, 500] }, transition: { temperature: 400, enthalpy: 3 } },
-      { form: null, label: 'Y-l', model: { kind: 'constant', cp: 80, range: [500, 900] }, transition: { temperature: 500, enthalpy: 12 } },
+      {
+        form: 'β',
+        label: 'Y-b',
+        model: { kind: 'constant', cp: 60, range: [400, 500] },
+        transition: { temperature: 400, enthalpy: 3 },
+      },
+      {
+        form: null,
+        label: 'Y-l',
+        model: { kind: 'constant', cp: 80, range: [500, 900] },
+        transition: { temperature: 500, enthalpy: 12 },
+      },
     ],
   };
   it('adds the stated enthalpies and ΔH/T to the integrals', () => {
     const h = (50 * (400 - 298.15) + 60 * 100 + 80 * 200) / 1000 + 3 + 12;
     expect(enthalpyIncrement(model, 700)).toBeCloseTo(h, 12);
-    const s = 50 * Math.log(400 / 298.15) + 3000 / 400 + 60 * Math.log(500 / 400) + 12000 / 500 + 80 * Math.log(700 / 500);
+    const s =
+      50 * Math.log(400 / 298.15) + 3000 / 400 + 60 * Math.log(500 / 400) + 12000 / 500 + 80 * Math.log(700 / 500);
     expect(entropy(model, 700, 30)).toBeCloseTo(30 + s, 12);
     expect(enthalpyIncrement(model, 260)).toBeCloseTo((50 * (260 - 298.15)) / 1000, 12);
     expect(phaseTransitions(model).map((t) => [t.temperature, t.enthalpy])).toEqual([

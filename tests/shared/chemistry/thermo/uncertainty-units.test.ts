@@ -22,7 +22,11 @@ describe('standardUncertainty', () => {
     const interval = standardUncertainty({ kind: 'interval', value: 0.13 });
     expect(interval.u).toBeCloseTo(0.065, 15);
     expect(interval.rule).toContain('common practice, no source');
-    expect(standardUncertainty({ kind: 'none' })).toEqual({ u: null, kind: 'none', rule: 'no uncertainty stated by the source' });
+    expect(standardUncertainty({ kind: 'none' })).toEqual({
+      u: null,
+      kind: 'none',
+      rule: 'no uncertainty stated by the source',
+    });
   });
   it('rejects negative values and coverage factors ≤ 0', () => {
     expect(() => standardUncertainty({ kind: 'standard', value: -1 })).toThrow(ThermoInputError);
