@@ -572,12 +572,15 @@ export const NASA_LABELS: readonly NasaLabelRow[] = [
     cas: '75-19-4',
   },
   {
+    // The entry's ΔfH°(298.15 K) from the polynomial is about −94 kJ/mol, which is methyloxirane's;
+    // acetone (gas) is about −217 kJ/mol (both from memory), so the label means propylene oxide.
     label: 'C3H6O',
     formula: 'C3H6O',
     phase: 'g',
-    name: 'acetone',
-    synonyms: ['propan-2-one', 'propanone'],
-    cas: '67-64-1',
+    descriptor: 'methyloxirane',
+    name: 'methyloxirane',
+    synonyms: ['propylene oxide', '1,2-epoxypropane'],
+    cas: '75-56-9',
   },
   {
     label: 'C3H7,n-propyl',
@@ -870,7 +873,14 @@ export const NASA_LABELS: readonly NasaLabelRow[] = [
     synonyms: ['ethenylbenzene', 'vinylbenzene'],
     cas: '100-42-5',
   },
-  { label: 'C8H10,ethylbenz', formula: 'C8H10', phase: 'g', name: 'ethylbenzene', cas: '100-41-4' },
+  {
+    label: 'C8H10,ethylbenz',
+    formula: 'C8H10',
+    phase: 'g',
+    descriptor: 'ethylbenzene',
+    name: 'ethylbenzene',
+    cas: '100-41-4',
+  },
   { label: 'C8H16,1-octene', formula: 'C8H16', phase: 'g', name: '1-octene', synonyms: ['oct-1-ene'], cas: '111-66-0' },
   { label: 'C8H17,n-octyl', formula: 'C8H17', phase: 'g', name: 'n-octyl radical', synonyms: ['octyl radical'] },
   {
