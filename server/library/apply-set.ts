@@ -5,7 +5,7 @@ import type { LibraryProperty } from '@shared/schemas/library-core';
 import type { Executor } from '../db/client';
 import { libraryModels, librarySelections, librarySources, librarySpecies, libraryValues } from '../db/tables/index';
 import {
-  functionRange,
+  statedRange,
   type LibrarySet,
   type ModelRecord,
   type Origin,
@@ -287,8 +287,7 @@ export async function applyLibrarySet(tx: Executor, set: LibrarySet, revision: n
 }
 
 function modelRow(m: ModelRecord, speciesId: string, sourceId: string) {
-  const [tMin] = functionRange(m.forms[0]!);
-  const [, tMax] = functionRange(m.forms[m.forms.length - 1]!);
+  const [tMin, tMax] = statedRange(m);
   return {
     speciesId,
     sourceId,

@@ -1,6 +1,6 @@
 import { propertyUnits, type Provenance } from '@shared/schemas/library-core';
 import type { LibraryModel, LibraryValue, Source, SourceRef, SpeciesSummary } from '@shared/schemas/library';
-import { functionRange } from './seed-set';
+import { statedRange } from './seed-set';
 import {
   selectedModel,
   selectedValue,
@@ -122,7 +122,7 @@ export function presentModel(
     source: sourceRef(sourceOf(snapshot, model.sourceId)),
     scale: model.scale,
     forms: model.forms,
-    range: [functionRange(model.forms[0]!)[0], functionRange(model.forms[model.forms.length - 1]!)[1]],
+    range: statedRange({ species: model.speciesId, scale: model.scale, forms: model.forms }),
     entryNote: model.entryNote,
     provenance: model.provenance,
     provenanceNote: model.provenanceNote,

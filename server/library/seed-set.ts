@@ -1,11 +1,11 @@
 import Papa from 'papaparse';
 import { z } from 'zod';
 import { molarMass, parseFormula } from '@shared/chemistry/index';
+import { thermoModelIssues, validRange } from '@shared/chemistry/thermo/index';
+import { thermoFormSchema, thermoScaleSchema } from '@shared/schemas/thermo';
 import {
-  heatCapacityFormSchema,
   libraryPhaseSchema,
   libraryPropertySchema,
-  modelScaleSchema,
   propertyUnits,
   provenanceSchema,
   sourceKindSchema,
@@ -221,15 +221,21 @@ const valueRow = z.object({
   note: optionalText,
 });
 
-const modelLine = z.object({
-  species: requiredText,
-  source: requiredText,
-  entryNote: z.string().nullable().optional(),
-  provenance: provenanceSchema,
-  provenanceNote: z.string().nullable().optional(),
-  scale: modelScaleSchema,
-  forms: z.array(heatCapacityFormSchema).min(1),
-});
+const modelLine = z
+  .strictObject({
+    species: requiredText,
+    source: requiredText,
+    entryNote: z.string().nullable().optional(),
+    provenance: provenanceSchema,
+    provenanceNote: z.string().nullable().optional(),
+    scale: thermoScaleSchema,
+    forms: z.array(thermoFormSchema).min(1),
+  })
+  // The thermo core's own rules: ranges ascend, forms meet, transitions stated on the relative scale.
+  .superRefine((model, ctx) => {
+    for (const issue of thermoModelIssues(model))
+      ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+  });
 
 const selectionRow = z.object({
   species: requiredText,
@@ -448,11 +454,6 @@ function readModels(file: LibraryFile, problems: SetProblem[]): ModelRecord[] {
       return;
     }
     const m = checked.data;
-    const problem = formSequenceProblem(m.scale, m.forms);
-    if (problem) {
-      problems.push({ ...origin, column: 'forms', message: problem });
-      return;
-    }
     out.push({
       origin,
       species: m.species,
@@ -467,39 +468,10 @@ function readModels(file: LibraryFile, problems: SetProblem[]): ModelRecord[] {
   return out;
 }
 
-/** Temperature range [min, max] of one form's function, in K. */
-export function functionRange(form: HeatCapacityForm): [number, number] {
-  const f = form.model;
-  if (f.kind === 'cp-table') return [f.points[0]![0], f.points[f.points.length - 1]![0]];
-  if (f.kind === 'constant') return [f.range[0], f.range[1]];
-  return [f.ranges[0]!, f.ranges[f.ranges.length - 1]!];
-}
-
-/** Checks ranges ascend, coefficients match ranges, and consecutive forms share their boundary. */
-function formSequenceProblem(scale: ModelScale, forms: HeatCapacityForm[]): string | null {
-  for (const [i, form] of forms.entries()) {
-    const f = form.model;
-    if (f.kind === 'nasa7' || f.kind === 'nasa9' || f.kind === 'shomate') {
-      if (f.coefficients.length !== f.ranges.length - 1)
-        return `form ${i + 1}: ${f.ranges.length} breakpoints need ${f.ranges.length - 1} coefficient sets, found ${f.coefficients.length}.`;
-      for (let j = 1; j < f.ranges.length; j++)
-        if (!(f.ranges[j]! > f.ranges[j - 1]!)) return `form ${i + 1}: temperature breakpoints must ascend.`;
-    }
-    if (f.kind === 'cp-table') {
-      for (let j = 1; j < f.points.length; j++)
-        if (!(f.points[j]![0] > f.points[j - 1]![0])) return `form ${i + 1}: table temperatures must ascend.`;
-    }
-    if (f.kind === 'constant' && !(f.range[1] > f.range[0])) return `form ${i + 1}: the range must ascend.`;
-    if (i > 0) {
-      const previousEnd = functionRange(forms[i - 1]!)[1];
-      const start = functionRange(form)[0];
-      if (Math.abs(previousEnd - start) > 1e-6)
-        return `form ${i + 1} starts at ${start} K but form ${i} ends at ${previousEnd} K.`;
-      if (scale === 'relative' && !form.transition)
-        return `form ${i + 1}: on the relative scale every form after the first states its transition.`;
-    }
-  }
-  return null;
+/** The temperature range a model states, in K (its first form's start to its last form's end). */
+export function statedRange(model: Pick<ModelRecord, 'species' | 'scale' | 'forms'>): [number, number] {
+  const range = validRange(model);
+  return [range.statedMin, range.max];
 }
 
 /** Cross-references: keys resolve, nothing is given twice, each element has one reference state. */

@@ -56,26 +56,6 @@ export const modelScales = ['formation', 'relative'] as const;
 export const modelScaleSchema = z.enum(modelScales);
 export type ModelScale = z.infer<typeof modelScaleSchema>;
 
-const finite = z.number().refine(Number.isFinite, 'Must be a finite number.');
-const rangeSchema = z.array(finite.positive()).min(2);
-
-/** A fitted heat-capacity function over one or more temperature ranges (see seeds/library/FORMAT.md). */
-export const heatCapacityFunctionSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('nasa7'), ranges: rangeSchema, coefficients: z.array(z.array(finite).length(7)).min(1) }),
-  z.object({ kind: z.literal('nasa9'), ranges: rangeSchema, coefficients: z.array(z.array(finite).length(9)).min(1) }),
-  z.object({ kind: z.literal('shomate'), ranges: rangeSchema, coefficients: z.array(z.array(finite).length(8)).min(1) }),
-  z.object({ kind: z.literal('cp-table'), points: z.array(z.tuple([finite.positive(), finite])).min(2) }),
-  z.object({ kind: z.literal('constant'), cp: finite, range: z.tuple([finite.positive(), finite.positive()]) }),
-]);
-export type HeatCapacityFunction = z.infer<typeof heatCapacityFunctionSchema>;
-
-/** One form in a species' sequence (a polymorph, or the only form of a gas or liquid). */
-export const heatCapacityFormSchema = z.object({
-  form: z.string().nullable(),
-  /** The source's own label, kept for traceability; never shown as a name. */
-  label: z.string().optional(),
-  model: heatCapacityFunctionSchema,
-  /** On the relative scale: the transition into this form from the previous one. */
-  transition: z.object({ temperature: finite.positive(), enthalpy: finite }).optional(),
-});
-export type HeatCapacityForm = z.infer<typeof heatCapacityFormSchema>;
+/** One form in a species' heat-capacity sequence (a polymorph, or the only form of a gas or liquid). */
+export { thermoFormSchema as heatCapacityFormSchema } from './thermo';
+export type { ThermoForm as HeatCapacityForm } from '../chemistry/thermo/index';

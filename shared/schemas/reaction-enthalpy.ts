@@ -26,7 +26,11 @@ export const reactionEnthalpyInputSchema = z.object({
 });
 export type ReactionEnthalpyInput = z.infer<typeof reactionEnthalpyInputSchema>;
 
-export const energySchema = z.object({ value: z.number(), uncertainty: z.number().nullable(), unit: z.literal('kJ/mol') });
+export const energySchema = z.object({
+  value: z.number(),
+  uncertainty: z.number().nullable(),
+  unit: z.literal('kJ/mol'),
+});
 
 export const warningSchema = z.object({
   code: z.string(),
