@@ -34,11 +34,11 @@ export const shomateModelSchema = z.strictObject({
 });
 export const cpTableModelSchema = z.strictObject({
   kind: z.literal('cp-table'),
-  points: z.array(z.tuple([kelvinSchema, z.number().positive('Cp must be above 0')])).min(2),
+  points: z.array(z.tuple([kelvinSchema, z.number()])).min(2),
 });
 export const constantCpModelSchema = z.strictObject({
   kind: z.literal('constant'),
-  cp: z.number().positive('Cp must be above 0'),
+  cp: z.number(),
   range: z.tuple([kelvinSchema, kelvinSchema]),
 });
 

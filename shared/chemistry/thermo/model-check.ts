@@ -73,15 +73,17 @@ function heatCapacityModelIssues(model: HeatCapacityModel, path: FieldPath): The
       model.points.forEach((p, i) => {
         if (!Array.isArray(p) || p.length !== 2)
           issues.push({ path: [...path, 'points', i], message: 'a point is [T in K, Cp in J/(mol K)]' });
-        else if (!isFiniteNumber(p[1]) || p[1] <= 0)
-          issues.push({ path: [...path, 'points', i, 1], message: 'Cp must be a finite value above 0 J/(mol K)' });
+        // No sign rule: partial molar Cp° of aqueous ions on the H⁺ convention is often negative.
+        else if (!isFiniteNumber(p[1]))
+          issues.push({ path: [...path, 'points', i, 1], message: 'Cp must be a finite value in J/(mol K)' });
       });
       increasing(temperatures, [...path, 'points'], issues, 'a table temperature');
       break;
     }
     case 'constant': {
-      if (!isFiniteNumber(model.cp) || model.cp <= 0)
-        issues.push({ path: [...path, 'cp'], message: 'cp must be a finite value above 0 J/(mol K)' });
+      // No sign rule: partial molar Cp° of aqueous ions (Cl⁻(aq) about −136 J/(mol K)) can be negative.
+      if (!isFiniteNumber(model.cp))
+        issues.push({ path: [...path, 'cp'], message: 'cp must be a finite value in J/(mol K)' });
       if (!Array.isArray(model.range) || model.range.length !== 2)
         issues.push({ path: [...path, 'range'], message: 'range is [Tmin, Tmax] in K' });
       else increasing(model.range, [...path, 'range'], issues, 'a range boundary');
