@@ -11,6 +11,7 @@ import { csrfGuard } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
 import { apiNotFound } from './middleware/not-found';
 import { RateLimits } from './middleware/rate-limit';
+import { LibraryCache } from './library/snapshot';
 import { requestId } from './middleware/request-id';
 import { securityHeaders } from './middleware/security-headers';
 import { buildRouter } from './routes/build-router';
@@ -39,6 +40,7 @@ export function createApp(options: CreateAppOptions): ThermoledgerApp {
     mailer: options.mailer,
     config: options.config,
     limits: new RateLimits(options.config),
+    library: new LibraryCache(options.db),
   };
   const routes = apiRoutes(options.extraRoutes);
   const app = express() as ThermoledgerApp;

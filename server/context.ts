@@ -2,6 +2,7 @@ import type { SessionUser } from '@shared/schemas/session';
 import type { AppConfig } from './env';
 import type { Db } from './db/client';
 import type { Mailer } from './mail/mailer';
+import type { LibraryCache } from './library/snapshot';
 import type { RateLimits } from './middleware/rate-limit';
 
 /** Who made a request, once authenticated. Tokens carry their owner's roles. */
@@ -18,6 +19,8 @@ export interface AppDeps {
   mailer: Mailer;
   config: AppConfig;
   limits: RateLimits;
+  /** The library's snapshots per revision (in memory, shared by all requests). */
+  library: LibraryCache;
 }
 
 /** Request metadata kept in the audit log. */

@@ -6,6 +6,7 @@ import { runMigrations } from './db/migrate';
 import { openConfiguredDatabase } from './db/open';
 import { DEMO_PASSWORD, loadDemoSeed, seedDemo } from './db/seed';
 import { DataDirLockedError } from './db/lock';
+import { seedLibrary } from './library/seed-library';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
 
@@ -14,6 +15,8 @@ async function main(): Promise<void> {
   const config = configFromEnv(env);
   const { open, release } = await openConfiguredDatabase(env);
   await runMigrations(open);
+  // The library's own seed is not demo data: it runs on every installation with an empty library.
+  const seededRevision = await seedLibrary(open.db);
   const seed = loadDemoSeed();
   await seedDemo(open.db, seed);
 
@@ -42,6 +45,7 @@ async function main(): Promise<void> {
   const port = (server.address() as AddressInfo).port;
   console.log(`Thermoledger is listening on http://localhost:${port} (public URL ${config.publicUrl})`);
   console.log(`Database: ${open.kind === 'pglite' ? `PGlite in ${env.DATA_DIR}` : 'PostgreSQL server (DATABASE_URL)'}`);
+  if (seededRevision !== null) console.log(`Library: seeded as revision ${seededRevision} from seeds/library`);
   console.log(
     fakeSmtp
       ? `Mail: development SMTP server on ${fakeSmtp.host}:${fakeSmtp.port}; read it at /api/v1/admin/outbox as a site admin`

@@ -4,9 +4,11 @@ import { adminRoutes } from './admin.routes';
 import { balanceRoutes } from './balance.routes';
 import { healthRoutes } from './health.routes';
 import { invitationRoutes } from './invitations.routes';
+import { libraryRoutes } from './library.routes';
 import { noteRoutes } from './notes.routes';
 import { buildOpenApiDocument } from './openapi';
 import { passwordResetRoutes } from './password-resets.routes';
+import { reactionEnthalpyRoutes } from './reaction-enthalpy.routes';
 import { defineRoute, type AnyRoute } from './registry';
 import { sessionRoutes } from './session.routes';
 import { teamRoutes } from './teams.routes';
@@ -21,6 +23,8 @@ const resourceRoutes: AnyRoute[] = [
   ...noteRoutes,
   ...adminRoutes,
   ...balanceRoutes,
+  ...libraryRoutes,
+  ...reactionEnthalpyRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

@@ -76,8 +76,12 @@ export const librarySources = pgTable(
     ...validity,
   },
   (t) => [
-    uniqueIndex('library_sources_current_id').on(t.id).where(sql`${t.validTo} is null`),
-    uniqueIndex('library_sources_current_key').on(t.key).where(sql`${t.validTo} is null`),
+    uniqueIndex('library_sources_current_id')
+      .on(t.id)
+      .where(sql`${t.validTo} is null`),
+    uniqueIndex('library_sources_current_key')
+      .on(t.key)
+      .where(sql`${t.validTo} is null`),
     index('library_sources_validity').on(t.validFrom, t.validTo),
   ],
 );
@@ -108,8 +112,12 @@ export const librarySpecies = pgTable(
     ...validity,
   },
   (t) => [
-    uniqueIndex('library_species_current_id').on(t.id).where(sql`${t.validTo} is null`),
-    uniqueIndex('library_species_current_key').on(t.key).where(sql`${t.validTo} is null`),
+    uniqueIndex('library_species_current_id')
+      .on(t.id)
+      .where(sql`${t.validTo} is null`),
+    uniqueIndex('library_species_current_key')
+      .on(t.key)
+      .where(sql`${t.validTo} is null`),
     index('library_species_validity').on(t.validFrom, t.validTo),
     index('library_species_hill').on(t.hill),
   ],
@@ -144,7 +152,9 @@ export const libraryValues = pgTable(
     ...validity,
   },
   (t) => [
-    uniqueIndex('library_values_current_id').on(t.id).where(sql`${t.validTo} is null`),
+    uniqueIndex('library_values_current_id')
+      .on(t.id)
+      .where(sql`${t.validTo} is null`),
     index('library_values_species').on(t.speciesId),
     index('library_values_validity').on(t.validFrom, t.validTo),
   ],
@@ -168,7 +178,9 @@ export const libraryModels = pgTable(
     ...validity,
   },
   (t) => [
-    uniqueIndex('library_models_current_id').on(t.id).where(sql`${t.validTo} is null`),
+    uniqueIndex('library_models_current_id')
+      .on(t.id)
+      .where(sql`${t.validTo} is null`),
     index('library_models_species').on(t.speciesId),
     index('library_models_validity').on(t.validFrom, t.validTo),
   ],
