@@ -1,0 +1,62 @@
+/**
+ * fuse.js scores the few hundred candidates the trigram index leaves. A small Fuse over the
+ * candidate strings is built per query: tests/bench/species-search.bench.ts compares it with the
+ * alternatives (a Fuse over candidate entries with name and synonym keys, `Fuse.createIndex`
+ * over the candidates, `Fuse.match` per candidate) and it was the fastest.
+ */
+import Fuse, { type IFuseOptions } from 'fuse.js';
+
+/**
+ * Location is ignored because a typo may sit anywhere in a name; the field-length norm is off so
+ * a score is plain errors ÷ pattern length. Texts and pattern come normalised already (lower
+ * case, accents stripped), so fuse.js need not fold case again.
+ */
+const BASE_OPTIONS: IFuseOptions<string> = {
+  includeScore: true,
+  ignoreLocation: true,
+  ignoreFieldNorm: true,
+  isCaseSensitive: true,
+  shouldSort: false,
+};
+
+/**
+ * The fuse.js threshold that lets exactly one edit through for a pattern of this length
+ * (fuse.js scores an edit as 1 ÷ pattern length; halfway to two edits keeps rounding out of it).
+ */
+export function oneTypoThreshold(patternLength: number): number {
+  return 1.5 / Math.max(1, patternLength);
+}
+
+/** A candidate that matched: its index in the candidate list and its score (edits ÷ pattern length; fuse.js gives 0.001 to an exact match). */
+export interface FuzzyScore {
+  candidate: number;
+  score: number;
+}
+
+/**
+ * Candidates that contain `pattern` with at most one typo: fuse.js finds those within one edit
+ * (substitution, insertion, deletion); a swap of two neighbours, which fuse.js counts as two
+ * edits, is found by looking for each swapped spelling and scored as one edit. Unsorted.
+ */
+export function rankFuzzy(pattern: string, candidates: readonly string[]): FuzzyScore[] {
+  if (candidates.length === 0 || pattern.length === 0) return [];
+  const fuse = new Fuse(candidates, { ...BASE_OPTIONS, threshold: oneTypoThreshold(pattern.length) });
+  const out: FuzzyScore[] = fuse.search(pattern).map((result) => ({ candidate: result.refIndex, score: result.score ?? 1 }));
+  const matched = new Set(out.map((s) => s.candidate));
+  const swaps = swappedSpellings(pattern);
+  const oneEdit = 1 / pattern.length;
+  candidates.forEach((text, candidate) => {
+    if (!matched.has(candidate) && swaps.some((s) => text.includes(s))) out.push({ candidate, score: oneEdit });
+  });
+  return out;
+}
+
+/** The pattern with each pair of different neighbouring characters swapped ("caesuim" → "aceusim", …, "caesium"). */
+function swappedSpellings(pattern: string): string[] {
+  const out: string[] = [];
+  for (let i = 0; i + 1 < pattern.length; i++) {
+    if (pattern[i] === pattern[i + 1]) continue;
+    out.push(pattern.slice(0, i) + pattern[i + 1] + pattern[i] + pattern.slice(i + 2));
+  }
+  return out;
+}
