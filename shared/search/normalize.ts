@@ -9,12 +9,15 @@ const COMBINING_MARKS = /\p{M}+/gu;
 const DASHES = /[\u2010-\u2015\u2212]/g;
 const QUOTES = /[\u2018\u2019\u2032]/g;
 const SPACES = /\s+/g;
+const PRINTABLE_ASCII = /^[\x20-\x7e]*$/;
 
 /**
  * Lower-case, accents stripped (`é` → `e`), dashes and quotes unified, control characters
  * dropped, runs of white space collapsed to one space, trimmed. Greek letters stay (`α-pinene`).
  */
 export function normalizeText(text: string): string {
+  // Most names are printable ASCII: lower-casing and spacing is all they need.
+  if (PRINTABLE_ASCII.test(text)) return text.toLowerCase().replace(SPACES, ' ').trim();
   return text
     .replace(CONTROL, ' ')
     .normalize('NFKD')
@@ -40,16 +43,20 @@ const LETTER = /\p{L}/u;
  */
 export function wordStarts(term: string): number[] {
   const starts: number[] = [];
-  for (let i = 1; i < term.length; i++) {
-    const previous = term[i - 1] ?? '';
-    const current = term[i] ?? '';
-    if (LETTER.test(current) && !isLetterOrDigit(previous)) starts.push(i);
+  let previousIsWordChar = true;
+  for (let i = 0; i < term.length; i++) {
+    const code = term.charCodeAt(i);
+    const letter = isLetter(code, term, i);
+    if (i > 0 && letter && !previousIsWordChar) starts.push(i);
+    previousIsWordChar = letter || (code >= 48 && code <= 57);
   }
   return starts;
 }
 
-function isLetterOrDigit(ch: string): boolean {
-  return LETTER.test(ch) || (ch >= '0' && ch <= '9');
+// ASCII without a regular expression (this runs for every character of every name at build).
+function isLetter(code: number, text: string, at: number): boolean {
+  if (code < 128) return (code >= 97 && code <= 122) || (code >= 65 && code <= 90);
+  return LETTER.test(text[at] ?? '');
 }
 
 /** Plain code-unit order: the same on every machine and locale (localeCompare is not). */

@@ -98,8 +98,8 @@ export function buildSpeciesIndex<E extends SpeciesIndexEntry>(entries: readonly
       push(byInchikey, key, i);
       push(byInchikey, key.slice(0, 14), i);
     }
-    addTerm(occurrences, e.name, i, -1);
-    e.synonyms.forEach((synonym, k) => addTerm(occurrences, synonym, i, k));
+    addTerm(occurrences, sortName[i]!, i, -1);
+    e.synonyms.forEach((synonym, k) => addTerm(occurrences, normalizeText(synonym), i, k));
   }
   const table = buildTermTable(occurrences);
   const trigrams = buildTrigramIndex(table.terms);
@@ -157,8 +157,7 @@ function hillKey(hill: string, charge: number): string {
   return `${hill}|${charge}`;
 }
 
-function addTerm(out: TermOccurrence[], text: string, entry: number, slot: number): void {
-  const term = normalizeText(text);
+function addTerm(out: TermOccurrence[], term: string, entry: number, slot: number): void {
   if (term !== '') out.push({ term, entry, slot });
 }
 
