@@ -19,12 +19,16 @@ const BASE_OPTIONS: IFuseOptions<string> = {
   shouldSort: false,
 };
 
+/** fuse.js's bitap works on 32 characters at a time: a longer pattern is searched as 32-character windows. */
+const BITAP_WINDOW = 32;
+
 /**
- * The fuse.js threshold that lets exactly one edit through for a pattern of this length
- * (fuse.js scores an edit as 1 ÷ pattern length; halfway to two edits keeps rounding out of it).
+ * The fuse.js threshold that lets exactly one edit through for a pattern of this length: fuse.js
+ * scores an edit as 1 ÷ pattern length, per 32-character window for longer patterns; halfway to
+ * two edits keeps rounding out of it.
  */
 export function oneTypoThreshold(patternLength: number): number {
-  return 1.5 / Math.max(1, patternLength);
+  return 1.5 / Math.max(1, Math.min(patternLength, BITAP_WINDOW));
 }
 
 /** A candidate that matched: its index in the candidate list and its score (edits ÷ pattern length; fuse.js gives 0.001 to an exact match). */
@@ -40,8 +44,14 @@ export interface FuzzyScore {
  */
 export function rankFuzzy(pattern: string, candidates: readonly string[]): FuzzyScore[] {
   if (candidates.length === 0 || pattern.length === 0) return [];
-  const fuse = new Fuse(candidates, { ...BASE_OPTIONS, threshold: oneTypoThreshold(pattern.length) });
-  const out: FuzzyScore[] = fuse.search(pattern).map((result) => ({ candidate: result.refIndex, score: result.score ?? 1 }));
+  const threshold = oneTypoThreshold(pattern.length);
+  const fuse = new Fuse(candidates, { ...BASE_OPTIONS, threshold });
+  // A long pattern matches when any one window does, and its score is the mean over the windows:
+  // keep only those whose mean stays within one edit.
+  const out: FuzzyScore[] = fuse
+    .search(pattern)
+    .map((result) => ({ candidate: result.refIndex, score: result.score ?? 1 }))
+    .filter((s) => s.score <= threshold);
   const matched = new Set(out.map((s) => s.candidate));
   const swaps = swappedSpellings(pattern);
   const oneEdit = 1 / pattern.length;

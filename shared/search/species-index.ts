@@ -91,7 +91,7 @@ export function buildSpeciesIndex<E extends SpeciesIndexEntry>(entries: readonly
       bits[i] = 1;
     }
     push(byFormula, e.formula, i);
-    push(byHill, hillKey(e.hill, e.charge), i);
+    push(byHill, e.hill, i);
     if (e.cas) push(byCas, e.cas.replace(/-/g, ''), i);
     if (e.inchikey) {
       const key = e.inchikey.toUpperCase();
@@ -151,10 +151,6 @@ function push(map: Map<string, number[]>, key: string, value: number): void {
   const list = map.get(key);
   if (!list) map.set(key, [value]);
   else if (list[list.length - 1] !== value) list.push(value);
-}
-
-function hillKey(hill: string, charge: number): string {
-  return `${hill}|${charge}`;
 }
 
 function addTerm(out: TermOccurrence[], term: string, entry: number, slot: number): void {
@@ -287,7 +283,8 @@ function collectFormulaHits(
     });
   };
   pass(T_FORMULA, F_FORMULA, (r) => data.byFormula.get(r.formula));
-  pass(T_HILL, F_HILL, (r) => data.byHill.get(hillKey(r.hill, r.charge)));
+  // Keyed by Hill formula alone (no key strings to build for 20,000 entries); the charge is checked here.
+  pass(T_HILL, F_HILL, (r) => data.byHill.get(r.hill)?.filter((entry) => data.entries[entry]!.charge === r.charge));
   return found;
 }
 

@@ -31,18 +31,24 @@ export function trigramCodes(text: string): number[] {
 }
 
 export function buildTrigramIndex(texts: readonly string[]): TrigramIndex {
-  const lists = new Map<number, number[]>();
+  // Two passes (count, then fill) so the posting lists are typed arrays from the start.
+  const codesOf = texts.map(trigramCodes);
+  const sizes = new Map<number, number>();
   let postingCount = 0;
-  texts.forEach((text, i) => {
-    for (const code of trigramCodes(text)) {
-      const list = lists.get(code);
-      if (list) list.push(i);
-      else lists.set(code, [i]);
-      postingCount++;
+  for (const codes of codesOf) {
+    for (const code of codes) sizes.set(code, (sizes.get(code) ?? 0) + 1);
+    postingCount += codes.length;
+  }
+  const lists = new Map<number, { list: Int32Array; filled: number }>();
+  for (const [code, size] of sizes) lists.set(code, { list: new Int32Array(size), filled: 0 });
+  codesOf.forEach((codes, i) => {
+    for (const code of codes) {
+      const slot = lists.get(code)!;
+      slot.list[slot.filled++] = i;
     }
   });
   const postings = new Map<number, Int32Array>();
-  for (const [code, list] of lists) postings.set(code, Int32Array.from(list));
+  for (const [code, { list }] of lists) postings.set(code, list);
   return { postings, lengths: Int32Array.from(texts, (t) => t.length), postingCount };
 }
 
