@@ -5,7 +5,8 @@
  * fuse.js over the whole library was too slow (about 250 ms p95 at 20,000 species).
  *
  * Ranking, best first: tier (formula, hill, exact, prefix, word-prefix, fuzzy — see
- * `SpeciesMatchTier`); inside formula tiers the query's reading (as typed first); inside prefix
+ * `SpeciesMatchTier`), except that a query in lower-case letters that is exactly a name or
+ * synonym puts those exact hits before its formula readings ("tin" → tin, then TiN); inside formula tiers the query's reading (as typed first); inside prefix
  * tiers the matched text in code-unit order; inside the fuzzy tier the fuse.js score, then texts
  * the query is a subsequence of, then the length closest to the query's; then the
  * entry's normalised name, then its key (code-unit order, the same on every machine).
@@ -55,6 +56,7 @@ const F_INCHIKEY = 5;
 const CAS_QUERY = /^(?:\d{2,7}-\d{2}-\d|\d{5,10})$/;
 const INCHIKEY_FULL = /^[A-Z]{14}-[A-Z]{10}-[A-Z]$/;
 const INCHIKEY_BLOCK = /^[A-Z]{14}$/;
+const LOWER_CASE_WORD = /^[a-z]+$/;
 
 /**
  * Builds the search index over `entries` (one library revision). The entries are kept by
@@ -216,10 +218,14 @@ function search<E extends SpeciesIndexEntry>(
 
   const hits = new Collected(data.stamp, data.generation);
   const readings = formulaReadings(rest);
-  const readingHits = collectFormulaHits(data, hits, readings, accept);
   const text = normalizeText(rest);
+  // A lower-case word that is a name is read as that name first: "tin" is tin before TiN
+  // (titanium nitride), while "TiN", typed in formula case, is TiN first.
+  const nameFirst = LOWER_CASE_WORD.test(rest) && findTerm(data.table, text) >= 0 && !readings.some((r) => r.asTyped);
+  if (nameFirst) collectExact(data, hits, text, rest, accept);
+  const readingHits = collectFormulaHits(data, hits, readings, accept);
   if (text !== '') {
-    collectExact(data, hits, text, rest, accept);
+    if (!nameFirst) collectExact(data, hits, text, rest, accept);
     collectPrefixes(data, hits, text, accept);
     if (text.length >= MIN_FUZZY_QUERY_LENGTH) collectFuzzy(data, hits, text, accept);
   }

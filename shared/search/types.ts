@@ -32,7 +32,9 @@ export interface SpeciesIndexEntry {
 }
 
 /**
- * How a hit matched, best first. The ranking sorts by this tier before anything else:
+ * How a hit matched, best first. The ranking sorts by this tier before anything else (one
+ * exception: a lower-case word that is exactly a name, such as "tin", lists those `exact` hits
+ * before the hits of its formula readings, TiN):
  * - `formula`: the entry's formula is one reading of the query (`co2` → CO2);
  * - `hill`: same Hill formula and charge, written differently (`C2H5OH` → CH3OCH3, an isomer);
  * - `exact`: the whole name, a synonym, the CAS RN or the InChIKey (full or first block);

@@ -56,6 +56,7 @@ const FIXTURE: SpeciesIndexEntry[] = [
   species('Cs(cr)', 'Cs', 'caesium', { synonyms: ['cesium'], cas: '7440-46-2' }),
   species('Sn(cr, white)', 'Sn', 'tin', { cas: '7440-31-5' }),
   species('Sn(cr, grey)', 'Sn', 'tin', { cas: '7440-31-5' }),
+  species('TiN(cr)', 'NTi', 'titanium nitride', { cas: '25583-20-4' }),
   species('C2H5OH(l)', 'C2H6O', 'ethanol', ETHANOL),
   species('C2H5OH(g)', 'C2H6O', 'ethanol', ETHANOL),
   species('CH3OCH3(g)', 'C2H6O', 'dimethyl ether', { synonyms: ['methoxymethane'], cas: '115-10-6', inchikey: 'LCGLNKUTAGEVQW-UHFFFAOYSA-N' }),
@@ -153,6 +154,18 @@ describe('buildSpeciesIndex: formulas', () => {
     expect(gas.queryPhase).toBe('g');
     expect(keysOf(index.search('h2o(s)'))).toEqual(['H2O(cr)']);
     expect(keysOf(index.search('c(cr, diamond)'))).toEqual(['C(cr, diamond)']);
+  });
+
+  it('reads a lower-case word that is a name as the name first ("tin" → tin, then TiN)', () => {
+    const tin = index.search('tin');
+    expect(tin.hits.map((h) => [h.entry.key, h.match.tier])).toEqual([
+      ['Sn(cr, grey)', 'exact'],
+      ['Sn(cr, white)', 'exact'],
+      ['TiN(cr)', 'formula'],
+    ]);
+    expect(tin.readings).toEqual(['TiN']);
+    // Typed in formula case, the formula comes first.
+    expect(keysOf(index.search('TiN'))[0]).toBe('TiN(cr)');
   });
 
   it('matches charged species by formula and charge', () => {
@@ -301,7 +314,7 @@ describe('buildSpeciesIndex: ranking', () => {
       'CH3OCH3(g)', // "ether" in "dimethyl ether", an inner word
     ]);
     // Same name "tin": by key.
-    expect(keysOf(index.search('tin'))).toEqual(['Sn(cr, grey)', 'Sn(cr, white)']);
+    expect(keysOf(index.search('tin')).slice(0, 2)).toEqual(['Sn(cr, grey)', 'Sn(cr, white)']);
   });
 
   it('gives the same order whatever the order of the entries', () => {
