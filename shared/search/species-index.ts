@@ -109,8 +109,8 @@ export function buildSpeciesIndex<E extends SpeciesIndexEntry>(entries: readonly
     entries: n,
     terms: table.terms.length,
     wordStarts: table.wordTerm.length,
-    trigrams: trigrams.postings.size,
-    trigramPostings: trigrams.postingCount,
+    trigrams: trigrams.gramIds.size,
+    trigramPostings: trigrams.postings.length,
   };
   const data: IndexData<E> = {
     entries,

@@ -33,7 +33,8 @@ export function buildTermTable(occurrences: readonly TermOccurrence[]): TermTabl
     if (list) list.push(i);
     else byTerm.set(occurrence.term, [i]);
   });
-  const terms = [...byTerm.keys()].sort(compareCodeUnits);
+  // The default sort compares UTF-16 code units, the order compareCodeUnits defines, without a callback.
+  const terms = [...byTerm.keys()].sort();
   const postStart = new Int32Array(terms.length + 1);
   const postEntry = new Int32Array(occurrences.length);
   const postSlot = new Int32Array(occurrences.length);
@@ -51,19 +52,34 @@ export function buildTermTable(occurrences: readonly TermOccurrence[]): TermTabl
   });
   postStart[terms.length] = at;
 
-  const starts: { term: number; offset: number; text: string }[] = [];
+  // Word starts sorted by their text: group them by text (many share one: "chloride"), sort the
+  // distinct texts natively (no callback), list each group in term order.
+  const byText = new Map<string, number[]>();
   terms.forEach((term, t) => {
-    for (const offset of wordStarts(term)) starts.push({ term: t, offset, text: term.slice(offset) });
+    for (const offset of wordStarts(term)) {
+      if (offset >= 4096) break; // no name is this long; keeps the packing below exact
+      const text = term.slice(offset);
+      const group = byText.get(text);
+      // Term index and offset packed in one number: offsets of a normalised name stay far below 2^12.
+      const packed = t * 4096 + offset;
+      if (group) group.push(packed);
+      else byText.set(text, [packed]);
+    }
   });
-  starts.sort((a, b) => compareCodeUnits(a.text, b.text) || a.term - b.term || a.offset - b.offset);
-  return {
-    terms,
-    postStart,
-    postEntry: postEntry.slice(0, at),
-    postSlot: postSlot.slice(0, at),
-    wordTerm: Int32Array.from(starts, (s) => s.term),
-    wordOffset: Int32Array.from(starts, (s) => s.offset),
-  };
+  const texts = [...byText.keys()].sort();
+  let startCount = 0;
+  for (const group of byText.values()) startCount += group.length;
+  const wordTerm = new Int32Array(startCount);
+  const wordOffset = new Int32Array(startCount);
+  let w = 0;
+  for (const text of texts) {
+    for (const packed of byText.get(text)!) {
+      wordTerm[w] = Math.floor(packed / 4096);
+      wordOffset[w] = packed % 4096;
+      w++;
+    }
+  }
+  return { terms, postStart, postEntry: postEntry.slice(0, at), postSlot: postSlot.slice(0, at), wordTerm, wordOffset };
 }
 
 function alreadyPosted(postEntry: Int32Array, from: number, to: number, entry: number): boolean {

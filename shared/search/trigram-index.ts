@@ -8,48 +8,72 @@
  */
 
 export interface TrigramIndex {
-  /** Posting list per trigram code (see `trigramCodes`): indexes of the strings containing it, ascending. */
-  readonly postings: ReadonlyMap<number, Int32Array>;
+  /** Trigram code (see `trigramCode`) → its number, which indexes `postStart`. */
+  readonly gramIds: ReadonlyMap<number, number>;
+  /** Strings containing trigram g: `postings[postStart[g]]` … `postings[postStart[g + 1] - 1]`, ascending. */
+  readonly postStart: Int32Array;
+  readonly postings: Int32Array;
   /** Length of each indexed string (to prefer candidates of about the query's length). */
   readonly lengths: Int32Array;
-  /** Total entries of all posting lists. */
-  readonly postingCount: number;
 }
 
 /**
- * Distinct trigrams of " text " (one space of padding on each side), each as one number: three
- * UTF-16 code units × 2^16 apart fit exactly in a double, and number keys are faster in a Map
- * than three-character strings.
+ * A trigram as one number: three UTF-16 code units × 2^16 apart fit exactly in a double, and
+ * number keys are faster in a Map than three-character strings.
  */
+function trigramCode(padded: string, at: number): number {
+  return padded.charCodeAt(at) * 4294967296 + padded.charCodeAt(at + 1) * 65536 + padded.charCodeAt(at + 2);
+}
+
+/** Distinct trigram codes of " text " (one space of padding on each side). */
 export function trigramCodes(text: string): number[] {
   const padded = ` ${text} `;
   const codes = new Set<number>();
-  for (let i = 0; i + 3 <= padded.length; i++) {
-    codes.add(padded.charCodeAt(i) * 4294967296 + padded.charCodeAt(i + 1) * 65536 + padded.charCodeAt(i + 2));
-  }
+  for (let i = 0; i + 3 <= padded.length; i++) codes.add(trigramCode(padded, i));
   return [...codes];
 }
 
+/**
+ * Builds the index in flat typed arrays: trigrams are numbered as met, each string's trigram
+ * numbers are listed once, then counted into one posting array (counting sort, no per-trigram
+ * arrays to grow).
+ */
 export function buildTrigramIndex(texts: readonly string[]): TrigramIndex {
-  // Two passes (count, then fill) so the posting lists are typed arrays from the start.
-  const codesOf = texts.map(trigramCodes);
-  const sizes = new Map<number, number>();
-  let postingCount = 0;
-  for (const codes of codesOf) {
-    for (const code of codes) sizes.set(code, (sizes.get(code) ?? 0) + 1);
-    postingCount += codes.length;
-  }
-  const lists = new Map<number, { list: Int32Array; filled: number }>();
-  for (const [code, size] of sizes) lists.set(code, { list: new Int32Array(size), filled: 0 });
-  codesOf.forEach((codes, i) => {
-    for (const code of codes) {
-      const slot = lists.get(code)!;
-      slot.list[slot.filled++] = i;
+  const gramIds = new Map<number, number>();
+  let totalChars = 0;
+  for (const text of texts) totalChars += text.length;
+  const gramOf = new Int32Array(totalChars + 2 * texts.length);
+  const textOf = new Int32Array(gramOf.length);
+  let count = 0;
+  let lastText = new Int32Array(1024).fill(-1); // grows with the trigram count
+  for (let t = 0; t < texts.length; t++) {
+    const padded = ` ${texts[t]} `;
+    for (let i = 0; i + 3 <= padded.length; i++) {
+      const code = trigramCode(padded, i);
+      let id = gramIds.get(code);
+      if (id === undefined) {
+        id = gramIds.size;
+        gramIds.set(code, id);
+        if (id >= lastText.length) {
+          const grown = new Int32Array(lastText.length * 2).fill(-1);
+          grown.set(lastText);
+          lastText = grown;
+        }
+      }
+      if (lastText[id] === t) continue; // the same trigram twice in one string
+      lastText[id] = t;
+      gramOf[count] = id;
+      textOf[count] = t;
+      count++;
     }
-  });
-  const postings = new Map<number, Int32Array>();
-  for (const [code, { list }] of lists) postings.set(code, list);
-  return { postings, lengths: Int32Array.from(texts, (t) => t.length), postingCount };
+  }
+  const postStart = new Int32Array(gramIds.size + 1);
+  for (let k = 0; k < count; k++) postStart[gramOf[k]! + 1]!++;
+  for (let g = 0; g < gramIds.size; g++) postStart[g + 1]! += postStart[g]!;
+  const fill = postStart.slice(0, gramIds.size);
+  const postings = new Int32Array(count);
+  for (let k = 0; k < count; k++) postings[fill[gramOf[k]!]!++] = textOf[k]!;
+  return { gramIds, postStart, postings, lengths: Int32Array.from(texts, (t) => t.length) };
 }
 
 /** Query trigrams a candidate may miss: one typo changes up to 4 of them (a swap of neighbours). */
@@ -84,10 +108,10 @@ export function trigramCandidates(
   const { counts, touched } = scratch;
   let touchedCount = 0;
   for (const gram of grams) {
-    const list = index.postings.get(gram);
-    if (!list) continue;
-    for (let k = 0; k < list.length; k++) {
-      const i = list[k]!;
+    const id = index.gramIds.get(gram);
+    if (id === undefined) continue;
+    for (let k = index.postStart[id]!; k < index.postStart[id + 1]!; k++) {
+      const i = index.postings[k]!;
       if (counts[i] === 0) touched[touchedCount++] = i;
       counts[i]!++;
     }
