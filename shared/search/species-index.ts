@@ -255,8 +255,9 @@ function makeFilter(
     if (phases && !phases.has(queryPhase)) return null;
     phases = new Set([queryPhase]);
   }
-  const phaseAllowed = new Uint8Array(256);
-  SPECIES_PHASES.forEach((p, code) => (phaseAllowed[code] = !phases || phases.has(p) ? 1 : 0));
+  // Without a phase filter every entry passes, even one whose phase is not a library phase (code 255).
+  const phaseAllowed = new Uint8Array(256).fill(phases ? 0 : 1);
+  if (phases) SPECIES_PHASES.forEach((p, code) => (phaseAllowed[code] = phases.has(p) ? 1 : 0));
   const elementBits: Uint8Array[] = [];
   for (const symbol of options.elements) {
     const bits = data.elementBits.get(symbol);

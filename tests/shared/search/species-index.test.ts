@@ -233,6 +233,13 @@ describe('buildSpeciesIndex: filters and paging', () => {
     expect(index.search('water', { elements: ['Hf'] }).total).toBe(0);
   });
 
+  it('finds an entry whose phase is not a library phase when no phase filter is set', () => {
+    const odd = { ...FIXTURE[0]!, id: 'odd', key: 'H2O(s)', phase: 's' as SpeciesPhase };
+    const withOdd = buildSpeciesIndex([...FIXTURE, odd]);
+    expect(keysOf(withOdd.search('h2o'))).toContain('H2O(s)');
+    expect(keysOf(withOdd.search('h2o', { phase: 'cr' }))).toEqual(['H2O(cr)']);
+  });
+
   it('pages with limit and offset and counts every hit in total', () => {
     const all = index.search('meth', { limit: 200 });
     expect(all.total).toBe(all.hits.length);
