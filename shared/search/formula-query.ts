@@ -69,7 +69,9 @@ export function formulaReadings(text: string): FormulaReading[] {
     seen.add(parsed.formula);
     readings.push({ text: candidate, ...parsed, asTyped: candidate === text });
   }
-  return readings.sort((a, b) => Number(b.asTyped) - Number(a.asTyped) || (a.text < b.text ? -1 : a.text > b.text ? 1 : 0));
+  return readings.sort(
+    (a, b) => Number(b.asTyped) - Number(a.asTyped) || (a.text < b.text ? -1 : a.text > b.text ? 1 : 0),
+  );
 }
 
 function tryParse(candidate: string): Pick<FormulaReading, 'formula' | 'hill' | 'charge'> | null {

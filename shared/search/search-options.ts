@@ -25,11 +25,17 @@ export interface CheckedOptions {
 export function checkOptions(options: SpeciesSearchOptions = {}): CheckedOptions {
   const limit = options.limit ?? DEFAULT_LIMIT;
   if (!Number.isInteger(limit) || limit < 1 || limit > MAX_LIMIT) {
-    throw new SpeciesSearchOptionError('limit', `limit must be a whole number from 1 to ${MAX_LIMIT}; got ${String(limit)}`);
+    throw new SpeciesSearchOptionError(
+      'limit',
+      `limit must be a whole number from 1 to ${MAX_LIMIT}; got ${String(limit)}`,
+    );
   }
   const offset = options.offset ?? 0;
   if (!Number.isInteger(offset) || offset < 0 || offset > MAX_OFFSET) {
-    throw new SpeciesSearchOptionError('offset', `offset must be a whole number from 0 to ${MAX_OFFSET}; got ${String(offset)}`);
+    throw new SpeciesSearchOptionError(
+      'offset',
+      `offset must be a whole number from 0 to ${MAX_OFFSET}; got ${String(offset)}`,
+    );
   }
   return { limit, offset, phases: checkPhases(options.phase), elements: checkElements(options.elements) };
 }
@@ -39,7 +45,10 @@ function checkPhases(phase: SpeciesSearchOptions['phase']): ReadonlySet<SpeciesP
   const list: readonly unknown[] = typeof phase === 'string' ? [phase] : phase;
   for (const p of list) {
     if (!SPECIES_PHASES.includes(p as SpeciesPhase)) {
-      throw new SpeciesSearchOptionError('phase', `phase must be one of ${SPECIES_PHASES.join(', ')}; got ${JSON.stringify(p)}`);
+      throw new SpeciesSearchOptionError(
+        'phase',
+        `phase must be one of ${SPECIES_PHASES.join(', ')}; got ${JSON.stringify(p)}`,
+      );
     }
   }
   return new Set(list as SpeciesPhase[]);
@@ -51,7 +60,10 @@ function checkElements(elements: readonly string[] | undefined): string[] {
   for (const raw of elements) {
     const symbol = typeof raw === 'string' ? properCaseSymbol(raw.trim()) : '';
     if (!isElementSymbol(symbol)) {
-      throw new SpeciesSearchOptionError('elements', `elements must be element symbols; ${JSON.stringify(raw)} is not one`);
+      throw new SpeciesSearchOptionError(
+        'elements',
+        `elements must be element symbols; ${JSON.stringify(raw)} is not one`,
+      );
     }
     out.add(symbol);
   }

@@ -15,7 +15,14 @@ import { formulaReadings, splitPhaseSuffix, type FormulaReading } from './formul
 import { rankFuzzy } from './fuzzy-rank';
 import { compareCodeUnits, normalizeText, stripControl } from './normalize';
 import { checkOptions, SPECIES_PHASES, type CheckedOptions } from './search-options';
-import { buildTermTable, findTerm, forEachTermWithPrefix, forEachWordWithPrefix, type TermOccurrence, type TermTable } from './term-table';
+import {
+  buildTermTable,
+  findTerm,
+  forEachTermWithPrefix,
+  forEachWordWithPrefix,
+  type TermOccurrence,
+  type TermTable,
+} from './term-table';
 import { buildTrigramIndex, trigramCandidates, TrigramScratch, type TrigramIndex } from './trigram-index';
 import type {
   SpeciesIndex,
@@ -67,7 +74,8 @@ export function buildSpeciesIndex<E extends SpeciesIndexEntry>(entries: readonly
   const n = entries.length;
   const sortName = entries.map((e) => normalizeText(e.name));
   const order = Array.from({ length: n }, (_, i) => i).sort(
-    (a, b) => compareCodeUnits(sortName[a]!, sortName[b]!) || compareCodeUnits(entries[a]!.key, entries[b]!.key) || a - b,
+    (a, b) =>
+      compareCodeUnits(sortName[a]!, sortName[b]!) || compareCodeUnits(entries[a]!.key, entries[b]!.key) || a - b,
   );
   const rank = new Int32Array(n);
   order.forEach((entry, r) => (rank[entry] = r));
@@ -329,7 +337,12 @@ function collectTerm(
   }
 }
 
-function collectPrefixes(data: IndexData<SpeciesIndexEntry>, hits: Collected, text: string, accept: (entry: number) => boolean): void {
+function collectPrefixes(
+  data: IndexData<SpeciesIndexEntry>,
+  hits: Collected,
+  text: string,
+  accept: (entry: number) => boolean,
+): void {
   forEachTermWithPrefix(data.table, text, (term) => {
     collectTerm(data, hits, term, T_PREFIX, accept);
     return true;
@@ -340,7 +353,12 @@ function collectPrefixes(data: IndexData<SpeciesIndexEntry>, hits: Collected, te
   });
 }
 
-function collectFuzzy(data: IndexData<SpeciesIndexEntry>, hits: Collected, text: string, accept: (entry: number) => boolean): void {
+function collectFuzzy(
+  data: IndexData<SpeciesIndexEntry>,
+  hits: Collected,
+  text: string,
+  accept: (entry: number) => boolean,
+): void {
   const { terms, postStart, postEntry, postSlot } = data.table;
   // Only terms that can still add an entry are worth scoring.
   const open = (term: number): boolean => {
@@ -363,7 +381,12 @@ function collectFuzzy(data: IndexData<SpeciesIndexEntry>, hits: Collected, text:
   for (const { candidate, score } of scored) {
     const term = candidates[candidate]!;
     const termText = terms[term]!;
-    const rankOfText = { score, dropped: isSubsequence(text, termText) ? 0 : 1, lengthGap: Math.abs(termText.length - text.length), slot: 0 };
+    const rankOfText = {
+      score,
+      dropped: isSubsequence(text, termText) ? 0 : 1,
+      lengthGap: Math.abs(termText.length - text.length),
+      slot: 0,
+    };
     for (let p = postStart[term]!; p < postStart[term + 1]!; p++) {
       const entry = postEntry[p]!;
       if (hits.has(entry) || !accept(entry)) continue;

@@ -131,7 +131,8 @@ export function trigramCandidates(
     // Closest length first, then index: one numeric key per string, sorted natively (no comparator).
     const bucket = buckets[count]!;
     const keys = new Float64Array(bucket.length);
-    for (let k = 0; k < bucket.length; k++) keys[k] = Math.abs(index.lengths[bucket[k]!]! - length) * 2 ** 31 + bucket[k]!;
+    for (let k = 0; k < bucket.length; k++)
+      keys[k] = Math.abs(index.lengths[bucket[k]!]! - length) * 2 ** 31 + bucket[k]!;
     keys.sort();
     for (let k = 0; k < keys.length && out.length < max; k++) {
       const i = keys[k]! % 2 ** 31;

@@ -11,7 +11,13 @@
 import { loadavg } from 'node:os';
 import { buildSpeciesIndex, normalizeText } from '@shared/search';
 import { generateQueries, generateSpeciesLibrary, type QueryKind } from './fixtures/generate-species-library';
-import { formatSummary, FUZZY_STRATEGIES, fuzzyWorkbench, summarize, wholeLibraryFuse } from './fixtures/species-search-measure';
+import {
+  formatSummary,
+  FUZZY_STRATEGIES,
+  fuzzyWorkbench,
+  summarize,
+  wholeLibraryFuse,
+} from './fixtures/species-search-measure';
 
 const SIZE = Number(process.env.SPECIES ?? 20_000);
 const ROUNDS = Number(process.env.ROUNDS ?? 5);
@@ -32,7 +38,11 @@ console.log(`library: ${entries.length} species from ${compounds} compounds, gen
 
 // Build time: the first build (cold code) and the median of five more, wall clock and CPU time
 // (CPU time suffers less when other processes share the machine).
-console.log(`load average at start: ${loadavg().map((l) => l.toFixed(1)).join(' ')} on this machine`);
+console.log(
+  `load average at start: ${loadavg()
+    .map((l) => l.toFixed(1))
+    .join(' ')} on this machine`,
+);
 t = now();
 buildSpeciesIndex(entries);
 const firstBuildMs = now() - t;
@@ -56,7 +66,8 @@ console.log(
     `CPU time median ${buildsCpu[2]!.toFixed(0)} ms (min ${buildsCpu[0]!.toFixed(0)})`,
 );
 console.log(`index: ${JSON.stringify(index.stats)}`);
-if (gc) console.log(`heap: library entries ${heapLibrary.toFixed(1)} MB, index on top of them ${heapIndex.toFixed(1)} MB`);
+if (gc)
+  console.log(`heap: library entries ${heapLibrary.toFixed(1)} MB, index on top of them ${heapIndex.toFixed(1)} MB`);
 else console.log('heap: run with node --expose-gc --import tsx for heap figures');
 
 // Queries: equal parts exact formulas, name prefixes, names with one typo.
@@ -83,9 +94,11 @@ for (let round = 0; round < ROUNDS; round++) {
   }
 }
 console.log(`\nsearch, ${queries.length} queries × ${ROUNDS} rounds (limit 20), wall clock:`);
-for (const kind of ['formula', 'prefix', 'typo', 'all'] as const) console.log(formatSummary(kind, summarize(samples[kind])));
+for (const kind of ['formula', 'prefix', 'typo', 'all'] as const)
+  console.log(formatSummary(kind, summarize(samples[kind])));
 console.log('same, CPU time:');
-for (const kind of ['formula', 'prefix', 'typo', 'all'] as const) console.log(formatSummary(kind, summarize(cpuSamples[kind])));
+for (const kind of ['formula', 'prefix', 'typo', 'all'] as const)
+  console.log(formatSummary(kind, summarize(cpuSamples[kind])));
 console.log(`queries with hits: formula ${found.formula}/200, prefix ${found.prefix}/200, typo ${found.typo}/200`);
 
 // Did the typo queries find the species they were made from? (top 1 / top 20)
@@ -93,7 +106,11 @@ const typoQueries = queries.filter((q) => q.kind === 'typo');
 let top1 = 0;
 let top20 = 0;
 for (const q of typoQueries) {
-  const at = index.search(q.text).hits.findIndex((h) => [h.entry.name, ...h.entry.synonyms].some((n) => withinOneEdit(normalizeText(q.text), normalizeText(n))));
+  const at = index
+    .search(q.text)
+    .hits.findIndex((h) =>
+      [h.entry.name, ...h.entry.synonyms].some((n) => withinOneEdit(normalizeText(q.text), normalizeText(n))),
+    );
   if (at === 0) top1++;
   if (at >= 0) top20++;
 }
@@ -106,7 +123,12 @@ function withinOneEdit(a: string, b: string): boolean {
   while (i < a.length && i < b.length && a[i] === b[i]) i++;
   if (i === a.length && i === b.length) return true;
   const rest = (x: number, y: number): boolean => a.slice(x) === b.slice(y);
-  return rest(i + 1, i + 1) || rest(i + 1, i) || rest(i, i + 1) || (a[i] === b[i + 1] && a[i + 1] === b[i] && rest(i + 2, i + 2));
+  return (
+    rest(i + 1, i + 1) ||
+    rest(i + 1, i) ||
+    rest(i, i + 1) ||
+    (a[i] === b[i + 1] && a[i + 1] === b[i] && rest(i + 2, i + 2))
+  );
 }
 
 // Baseline: fuse.js alone over the whole library (fewer queries: it is slow).
@@ -124,12 +146,16 @@ console.log(formatSummary('fuse.js whole library', summarize(baseline)));
 
 // Fuzzy scoring strategies on the same trigram candidates of the typo queries.
 const bench = fuzzyWorkbench(entries);
-const cases = queries.filter((q) => q.kind !== 'formula' && q.text.length >= 4).map((q) => {
-  const candidates = bench.candidatesFor(q.text);
-  const texts = candidates.map((c) => bench.terms[c]!);
-  const candidateEntries = [...new Set(candidates.flatMap((c) => bench.termEntries.get(bench.terms[c]!) ?? []))].map((i) => entries[i]!);
-  return { pattern: normalizeText(q.text), texts, candidateEntries };
-});
+const cases = queries
+  .filter((q) => q.kind !== 'formula' && q.text.length >= 4)
+  .map((q) => {
+    const candidates = bench.candidatesFor(q.text);
+    const texts = candidates.map((c) => bench.terms[c]!);
+    const candidateEntries = [...new Set(candidates.flatMap((c) => bench.termEntries.get(bench.terms[c]!) ?? []))].map(
+      (i) => entries[i]!,
+    );
+    return { pattern: normalizeText(q.text), texts, candidateEntries };
+  });
 const meanCandidates = cases.reduce((n, c) => n + c.texts.length, 0) / cases.length;
 const maxCandidates = Math.max(...cases.map((c) => c.texts.length));
 console.log(
@@ -156,6 +182,12 @@ for (let round = 0; round < 5; round++) {
   }
 }
 for (const [label] of strategies) {
-  console.log(`${formatSummary(label, summarize(wall.get(label)!))}  CPU ${cpuPerQuery.get(label)!.toFixed(0).padStart(5)} µs/query`);
+  console.log(
+    `${formatSummary(label, summarize(wall.get(label)!))}  CPU ${cpuPerQuery.get(label)!.toFixed(0).padStart(5)} µs/query`,
+  );
 }
-console.log(`\nload average at end: ${loadavg().map((l) => l.toFixed(1)).join(' ')}`);
+console.log(
+  `\nload average at end: ${loadavg()
+    .map((l) => l.toFixed(1))
+    .join(' ')}`,
+);

@@ -1,6 +1,11 @@
 import { afterAll, bench, describe } from 'vitest';
 import { buildSpeciesIndex } from '@shared/search';
-import { generateQueries, generateSpeciesLibrary, type BenchQuery, type QueryKind } from './fixtures/generate-species-library';
+import {
+  generateQueries,
+  generateSpeciesLibrary,
+  type BenchQuery,
+  type QueryKind,
+} from './fixtures/generate-species-library';
 import { formatSummary, FUZZY_STRATEGIES, fuzzyWorkbench, summarize } from './fixtures/species-search-measure';
 
 // Target: p95 ≤ 20 ms per query on 20,000 species, for each kind (exact formulas, name prefixes,
@@ -34,9 +39,13 @@ describe('species search, 20,000 species, one query per iteration', () => {
 });
 
 describe('building the index over 20,000 species', () => {
-  bench('buildSpeciesIndex', () => {
-    buildSpeciesIndex(entries);
-  }, { time: 5000, iterations: 5, warmupIterations: 1 });
+  bench(
+    'buildSpeciesIndex',
+    () => {
+      buildSpeciesIndex(entries);
+    },
+    { time: 5000, iterations: 5, warmupIterations: 1 },
+  );
 });
 
 // The ways of letting fuse.js score the trigram candidates, on the candidates of the typo and
@@ -54,15 +63,21 @@ const fuzzyCases = queries
 describe('fuzzy scoring of trigram candidates, one query per iteration', () => {
   for (const [label, strategy] of Object.entries(FUZZY_STRATEGIES)) {
     let next = 0;
-    bench(label, () => {
-      const c = fuzzyCases[next++ % fuzzyCases.length]!;
-      strategy(c.pattern, c.texts, c.candidateEntries);
-    }, OPTIONS);
+    bench(
+      label,
+      () => {
+        const c = fuzzyCases[next++ % fuzzyCases.length]!;
+        strategy(c.pattern, c.texts, c.candidateEntries);
+      },
+      OPTIONS,
+    );
   }
 });
 
 afterAll(() => {
   // Warm-up iterations are included: this p95 is, if anything, pessimistic.
-  const lines = (['formula', 'prefix', 'typo', 'mixed'] as const).map((kind) => formatSummary(`${kind} (own samples)`, summarize(samples[kind])));
+  const lines = (['formula', 'prefix', 'typo', 'mixed'] as const).map((kind) =>
+    formatSummary(`${kind} (own samples)`, summarize(samples[kind])),
+  );
   console.log(`\nspecies search p95 from our own samples:\n${lines.join('\n')}`);
 });

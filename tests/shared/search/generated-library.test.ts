@@ -46,7 +46,9 @@ describe('buildSpeciesIndex over the generated library', () => {
   it('finds each species by its name and by its CAS number, as exact hits (every twentieth species)', () => {
     const sample = entries.filter((_, i) => i % 20 === 0);
     const exact = (query: string, e: (typeof entries)[number], field: string): boolean =>
-      index.search(query, { limit: 200 }).hits.some((h) => h.entry === e && h.match.tier === 'exact' && h.match.field === field);
+      index
+        .search(query, { limit: 200 })
+        .hits.some((h) => h.entry === e && h.match.tier === 'exact' && h.match.field === field);
     expect(sample.filter((e) => !exact(e.name, e, 'name')).map((e) => e.name)).toEqual([]);
     expect(sample.filter((e) => e.cas && !exact(e.cas, e, 'cas')).map((e) => e.cas)).toEqual([]);
   });

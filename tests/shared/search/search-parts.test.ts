@@ -103,7 +103,10 @@ function edit(word: string, kind: number, at: number, letter: string): string {
   }
 }
 
-const wordArbitrary = fc.string({ unit: fc.constantFrom(...'abcdefghilmnoprstuy-,1234 '), minLength: 6, maxLength: 70 }).map((w) => normalizeText(w)).filter((w) => w.length >= 6);
+const wordArbitrary = fc
+  .string({ unit: fc.constantFrom(...'abcdefghilmnoprstuy-,1234 '), minLength: 6, maxLength: 70 })
+  .map((w) => normalizeText(w))
+  .filter((w) => w.length >= 6);
 
 describe('trigram candidates and fuzzy scoring', () => {
   it('keep every text within one typo of the query (property)', () => {
@@ -140,8 +143,11 @@ describe('trigram candidates and fuzzy scoring', () => {
   it('finds a typo in a name longer than fuse.js’s 32-character window', () => {
     const name = '10-chloro-3,15,18-trihydroxy-20-methoxyicosan-6-one';
     expect(rankFuzzy('10-chloro-3,15,18-trihyroxy-20-methoxyicosan-6-one', [name])).toHaveLength(1);
-    expect(rankFuzzy('10-chloro-3,15,18-trihydroxy-20-methoxyicosan-6-ane', [name, '10-chloro-3,15,18-trihydroxy-20-ethylicosan-6-one'])).toEqual([
-      { candidate: 0, score: expect.any(Number) },
-    ]);
+    expect(
+      rankFuzzy('10-chloro-3,15,18-trihydroxy-20-methoxyicosan-6-ane', [
+        name,
+        '10-chloro-3,15,18-trihydroxy-20-ethylicosan-6-one',
+      ]),
+    ).toEqual([{ candidate: 0, score: expect.any(Number) }]);
   });
 });
