@@ -12,8 +12,9 @@
 import { readdirSync, readFileSync, existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import Papa from 'papaparse';
-import { evaluateEntry, loadNasaEntries, nasaDataDir } from './nasa-source';
-import { nasaLabelsByKey, nasaEntryFor, PROVISIONAL_NASA_LABELS } from './nasa-key-map';
+import { NASA_SOURCE_DIR } from './import-nasa';
+import { loadNasaEntries, nasaLabelsByKey, nasaEntryFor, PROVISIONAL_NASA_LABELS } from './nasa-key-map';
+import { evaluateAtReference } from './nasa-polynomials';
 
 interface ValueRow {
   species: string;
@@ -105,23 +106,20 @@ function describe(
       return { verdict: 'agrees', note: `agrees with ${against} within ${within(diff)} ${unit}` };
     return {
       verdict: 'differs',
-      note: `differs from ${against} by ${magnitude(diff)} ${unit} (ours ${signed(diff)}), beyond its ± ${uText}`,
+      note: `differs from ${against} by ${magnitude(diff)} ${unit} (this value ${signed(diff)}), beyond its ± ${uText}`,
     };
   }
   if (Math.abs(diff) < 0.005) return { verdict: 'agrees', note: `agrees with ${against} within 0.01 ${unit}` };
   return {
     verdict: 'compared',
-    note: `differs from ${against} by ${magnitude(diff)} ${unit} (ours ${signed(diff)}; no ± stated to judge it)`,
+    note: `differs from ${against} by ${magnitude(diff)} ${unit} (this value ${signed(diff)}; no ± stated to judge it)`,
   };
 }
 
 /** Every comparison for the value rows of a library folder. */
-export function compareLibrary(
-  libraryDir: string,
-  nasaDir = nasaDataDir(),
-): { comparisons: Comparison[]; labelOrigin: string } {
+export function compareLibrary(libraryDir: string): { comparisons: Comparison[]; labelOrigin: string } {
   const rows = readValueFiles(libraryDir);
-  const entries = loadNasaEntries(nasaDir);
+  const entries = loadNasaEntries();
   const { labels, origin } = nasaLabelsByKey(libraryDir);
   const comparisons: Comparison[] = [];
   for (const row of rows) {
@@ -140,18 +138,18 @@ export function compareLibrary(
     } as const;
     const entry = nasaEntryFor(row.species, labels, entries);
     if (entry) {
-      const { h, s } = evaluateEntry(entry);
+      const { h, s } = evaluateAtReference(entry);
       const reference = row.property === 'dfH298' ? h : s;
       const diff = value - reference;
       const verdict = describe(row.property, NASA_SOURCE, diff, row.uncertainty);
       // Name the entry and the data behind its fit (J = JANAF, CODA89 = CODATA…) where the two differ.
       const note =
-        verdict.verdict === 'agrees' ? verdict.note : `${verdict.note} (NASA entry ${entry.name}, ${entry.note})`;
+        verdict.verdict === 'agrees' ? verdict.note : `${verdict.note} (NASA entry ${entry.label}, ${entry.note})`;
       comparisons.push({
         ...base,
         comparedWith: NASA_SOURCE,
         reference,
-        referenceLabel: entry.name,
+        referenceLabel: entry.label,
         difference: diff,
         verdict: verdict.verdict,
         note,
@@ -208,13 +206,13 @@ function main(): void {
     process.stdout.write(JSON.stringify(shown, null, 1) + '\n');
     return;
   }
-  console.log(`NASA data: ${nasaDataDir()}  (key → label map: ${labelOrigin})`);
+  console.log(`NASA data: ${NASA_SOURCE_DIR}  (key → label map: ${labelOrigin})`);
   console.log(
     [
       pad('species', 34),
       pad('prop', 6),
       pad('source', 16),
-      pad('ours', 11),
+      pad('value', 11),
       pad('±', 7),
       pad('reference', 12),
       pad('diff', 9),

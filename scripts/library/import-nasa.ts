@@ -12,17 +12,31 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { NASA_EXCLUDED, NASA_LABELS } from './nasa-labels';
-import { buildNasaSeed, NasaImportError, readSourceJsonl, SOURCES_HEADER, type NasaSeed } from './nasa-seed';
+import {
+  buildNasaSeed,
+  NasaImportError,
+  readSourceJsonl,
+  SOURCES_HEADER,
+  type NasaSeed,
+  type NasaSourceEntry,
+} from './nasa-seed';
 import { upsertCsvRecord } from './seed-csv';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 export const NASA_SOURCE_DIR = `${root}seeds/source-data/nasa-tm4513/`;
 export const LIBRARY_DIR = `${root}seeds/library/`;
 
+/** The entries of the copied source files, each file in its own order (a bad line stops it). */
+export function readNasaSource(dir = NASA_SOURCE_DIR): { gas: NasaSourceEntry[]; condensed: NasaSourceEntry[] } {
+  return {
+    gas: readSourceJsonl(readFileSync(`${dir}gas.jsonl`, 'utf8'), 'gas.jsonl'),
+    condensed: readSourceJsonl(readFileSync(`${dir}condensed.jsonl`, 'utf8'), 'condensed.jsonl'),
+  };
+}
+
 /** Runs the import on the copied source files (no writing). */
 export function runNasaImport(): NasaSeed {
-  const gas = readSourceJsonl(readFileSync(`${NASA_SOURCE_DIR}gas.jsonl`, 'utf8'), 'gas.jsonl');
-  const condensed = readSourceJsonl(readFileSync(`${NASA_SOURCE_DIR}condensed.jsonl`, 'utf8'), 'condensed.jsonl');
+  const { gas, condensed } = readNasaSource();
   return buildNasaSeed(gas, condensed, NASA_LABELS, NASA_EXCLUDED);
 }
 

@@ -13,7 +13,9 @@
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { T_REF, MAX_EXTRAPOLATION_K, type NasaEntry } from './nasa-source';
+import { readNasaSource } from './import-nasa';
+import { coversReferenceTemperature } from './nasa-polynomials';
+import type { NasaSourceEntry } from './nasa-seed';
 
 /** Library key → label of the NASA entry that covers 298.15 K (gases: the only entry). */
 export const PROVISIONAL_NASA_LABELS: Readonly<Record<string, string>> = {
@@ -218,21 +220,29 @@ export function nasaLabelsByKey(libraryDir: string): { labels: Map<string, strin
   for (const line of readFileSync(file, 'utf8').split('\n')) {
     if (line.trim() === '') continue;
     const model = JSON.parse(line) as ImportedModelLine;
-    const form = model.forms.find((f) => {
-      const r = f.model.ranges;
-      return r !== undefined && r[0]! - MAX_EXTRAPOLATION_K <= T_REF && T_REF <= r[r.length - 1]!;
-    });
+    const form = model.forms.find((f) => f.model.ranges !== undefined && coversReferenceTemperature(f.model.ranges));
     if (form) labels.set(model.species, form.label);
   }
   return { labels, origin: 'import' };
+}
+
+/** Every entry of the copied NASA TM-4513 files (seeds/source-data/nasa-tm4513/), by the report's label. */
+export function loadNasaEntries(): Map<string, NasaSourceEntry> {
+  const { gas, condensed } = readNasaSource();
+  const entries = new Map<string, NasaSourceEntry>();
+  for (const entry of [...gas, ...condensed]) {
+    if (entries.has(entry.label)) throw new Error(`${entry.file} line ${entry.line}: duplicate label ${entry.label}`);
+    entries.set(entry.label, entry);
+  }
+  return entries;
 }
 
 /** The entry behind a key, or undefined when the NASA file does not hold the species at 298.15 K. */
 export function nasaEntryFor(
   key: string,
   labels: Map<string, string>,
-  entries: Map<string, NasaEntry>,
-): NasaEntry | undefined {
+  entries: Map<string, NasaSourceEntry>,
+): NasaSourceEntry | undefined {
   const label = labels.get(key);
   return label === undefined ? undefined : entries.get(label);
 }

@@ -8,6 +8,16 @@
 /** Molar gas constant, J/(mol K) (CODATA 2018, exact since the 2019 SI). */
 export const R_J_PER_MOL_K = 8.314462618;
 
+/** The reference temperature of every library value, K. */
+export const T_REF = 298.15;
+
+/**
+ * A fit gives values at 298.15 K when it starts at or below this. 427 gas fits start at 300 K; using
+ * them 1.85 K below their range is accepted practice (SOURCE.md). Anything starting later is never
+ * extrapolated.
+ */
+export const LATEST_FIT_START_K = 300;
+
 export type NasaKind = 'nasa7' | 'nasa9';
 
 /** One fitted range: its coefficients a1…a7 or a1…a9. */
@@ -81,4 +91,33 @@ export function evaluateNasa(kind: NasaKind, coefficients: NasaCoefficients, t: 
 export function rangeIndexAt(ranges: readonly number[], t: number): number {
   for (let i = 1; i < ranges.length; i++) if (t <= ranges[i]!) return i - 1;
   return ranges.length - 2;
+}
+
+/**
+ * Whether a fit over `ranges` gives values at 298.15 K: it starts at or below LATEST_FIT_START_K and
+ * ends above 298.15 K.
+ */
+export function coversReferenceTemperature(ranges: readonly number[]): boolean {
+  const first = ranges[0];
+  const last = ranges[ranges.length - 1];
+  return first !== undefined && last !== undefined && first <= LATEST_FIT_START_K && last > T_REF;
+}
+
+/** One fit as the source gives it. */
+export interface NasaFit {
+  label: string;
+  kind: NasaKind;
+  ranges: readonly number[];
+  coefficients: readonly NasaCoefficients[];
+}
+
+/**
+ * H°, S° and Cp° of a fit at 298.15 K.
+ * @throws RangeError when the fit does not cover 298.15 K (see coversReferenceTemperature).
+ */
+export function evaluateAtReference(fit: NasaFit): NasaPoint {
+  if (!coversReferenceTemperature(fit.ranges)) {
+    throw new RangeError(`${fit.label} covers ${fit.ranges[0]}–${fit.ranges[fit.ranges.length - 1]} K, not ${T_REF} K`);
+  }
+  return evaluateNasa(fit.kind, fit.coefficients[rangeIndexAt(fit.ranges, T_REF)]!, T_REF);
 }

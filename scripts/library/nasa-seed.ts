@@ -8,7 +8,15 @@
 import { z } from 'zod';
 import { parseFormula } from '../../shared/chemistry/index';
 import type { NasaExclusion, NasaLabelRow, NasaPhase } from './nasa-labels';
-import { evaluateNasa, rangeIndexAt, R_J_PER_MOL_K, type NasaKind } from './nasa-polynomials';
+import {
+  coversReferenceTemperature,
+  evaluateAtReference,
+  evaluateNasa,
+  rangeIndexAt,
+  R_J_PER_MOL_K,
+  T_REF,
+  type NasaKind,
+} from './nasa-polynomials';
 import { toCsv } from './seed-csv';
 
 export const NASA_SOURCE_KEY = 'nasa-tm4513';
@@ -58,14 +66,6 @@ export const SOURCES_HEADER = [
   'note',
 ] as const;
 
-/** The reference temperature of every value, K. */
-export const T_REF = 298.15;
-/**
- * A species gets values at 298.15 K when its (first form's) fit starts at or below this. 427 gas
- * fits start at 300 K; using them 1.85 K below their range is accepted practice (SOURCE.md).
- * Anything starting later is never extrapolated.
- */
-export const LATEST_FIT_START_K = 300;
 /** |H°(298.15 K)| a reference-state polynomial may show before the import refuses it, kJ/mol. */
 const REFERENCE_STATE_TOLERANCE_KJ = 0.005;
 
@@ -417,7 +417,7 @@ export function buildNasaSeed(
     const first = sp.forms[0]!;
     const t0 = first.entry.ranges[0]!;
     const t1 = first.entry.ranges[first.entry.ranges.length - 1]!;
-    const hasValue = t0 <= LATEST_FIT_START_K && t1 > T_REF;
+    const hasValue = coversReferenceTemperature(first.entry.ranges);
     const labelsText = `TM-4513 label${sp.forms.length > 1 ? 's' : ''}: ${sp.forms.map((f) => f.row.label).join(', ')}`;
     const noValueText = hasValue
       ? ''
@@ -438,11 +438,7 @@ export function buildNasaSeed(
     ]);
 
     if (hasValue) {
-      const at = evaluateNasa(
-        first.entry.kind,
-        first.entry.coefficients[rangeIndexAt(first.entry.ranges, T_REF)]!,
-        T_REF,
-      );
+      const at = evaluateAtReference(first.entry);
       const ionConvention = sp.phase === 'g' && sp.charge !== 0 ? 'thermal-electron' : '';
       const fromText = `from the polynomial of ${first.row.label} at 298.15 K`;
       const below =
