@@ -475,7 +475,7 @@ export function statedRange(model: Pick<ModelRecord, 'species' | 'scale' | 'form
 }
 
 /** Cross-references: keys resolve, nothing is given twice, each element has one reference state. */
-function crossCheck(set: LibrarySet, problems: SetProblem[]): void {
+function crossCheck(set: LibrarySet, problems: SetProblem[], complete: boolean): void {
   const report = (record: { origin: Origin }, message: string, column?: string) =>
     problems.push({ ...record.origin, ...(column ? { column } : {}), message });
   const sourceKeys = new Set<string>();
@@ -496,16 +496,16 @@ function crossCheck(set: LibrarySet, problems: SetProblem[]): void {
   }
   const valueKeys = new Set<string>();
   for (const v of set.values) {
-    if (!speciesKeys.has(v.species)) report(v, `unknown species ${v.species}.`, 'species');
-    if (!sourceKeys.has(v.source)) report(v, `unknown source ${v.source}.`, 'source');
+    if (complete && !speciesKeys.has(v.species)) report(v, `unknown species ${v.species}.`, 'species');
+    if (complete && !sourceKeys.has(v.source)) report(v, `unknown source ${v.source}.`, 'source');
     const id = `${v.species}|${v.property}|${v.source}`;
     if (valueKeys.has(id)) report(v, `${v.property} of ${v.species} from ${v.source} is given twice.`);
     valueKeys.add(id);
   }
   const modelKeys = new Set<string>();
   for (const m of set.models) {
-    if (!speciesKeys.has(m.species)) report(m, `unknown species ${m.species}.`, 'species');
-    if (!sourceKeys.has(m.source)) report(m, `unknown source ${m.source}.`, 'source');
+    if (complete && !speciesKeys.has(m.species)) report(m, `unknown species ${m.species}.`, 'species');
+    if (complete && !sourceKeys.has(m.source)) report(m, `unknown source ${m.source}.`, 'source');
     const id = `${m.species}|${m.source}`;
     if (modelKeys.has(id)) report(m, `a model of ${m.species} from ${m.source} is given twice.`);
     modelKeys.add(id);
@@ -516,15 +516,21 @@ function crossCheck(set: LibrarySet, problems: SetProblem[]): void {
     if (selected.has(id)) report(s, `${s.property} of ${s.species} is selected twice.`);
     selected.add(id);
     const exists = s.property === 'cp' ? modelKeys.has(`${s.species}|${s.source}`) : valueKeys.has(`${id}|${s.source}`);
-    if (!exists) report(s, `there is no ${s.property} of ${s.species} from ${s.source} to select.`, 'source');
+    if (complete && !exists)
+      report(s, `there is no ${s.property} of ${s.species} from ${s.source} to select.`, 'source');
   }
 }
 
 /**
- * Reads and cross-checks a whole set. Problems name file, line and column; when there is any
- * problem the caller must not apply the set.
+ * Reads and cross-checks a set. Problems name file, line and column; when there is any problem
+ * the caller must not apply the set. A `complete` set (the seed) must resolve every key within
+ * itself; a partial one (an import) may name species and sources already in the library, which
+ * applying it checks.
  */
-export function readLibrarySet(files: readonly LibraryFile[]): { set: LibrarySet; problems: SetProblem[] } {
+export function readLibrarySet(
+  files: readonly LibraryFile[],
+  { complete = true }: { complete?: boolean } = {},
+): { set: LibrarySet; problems: SetProblem[] } {
   const problems: SetProblem[] = [];
   const set: LibrarySet = { sources: [], species: [], values: [], models: [], selections: [] };
   for (const file of files) {
@@ -560,6 +566,6 @@ export function readLibrarySet(files: readonly LibraryFile[]): { set: LibrarySet
         });
     }
   }
-  crossCheck(set, problems);
+  crossCheck(set, problems, complete);
   return { set, problems };
 }

@@ -5,9 +5,11 @@ import {
   speciesListSchema,
   speciesParamsSchema,
   speciesQuerySchema,
+  libraryImportInputSchema,
+  libraryImportResultSchema,
 } from '@shared/schemas/library';
-import { getSpecies, listRevisions, listSpecies } from '../services/library.service';
-import { defineRoute } from './registry';
+import { getSpecies, importLibraryFiles, listRevisions, listSpecies } from '../services/library.service';
+import { defineRoute, signedIn } from './registry';
 
 /** Reading the library: public, like the calculations, and rate-limited the same way. */
 export const libraryRoutes = [
@@ -44,5 +46,18 @@ export const libraryRoutes = [
     rateLimit: 'calc',
     responses: { 200: revisionListSchema },
     handler: ({ deps }) => listRevisions(deps.db),
+  }),
+
+  defineRoute({
+    method: 'post',
+    path: '/library/imports',
+    summary: 'Import library files (seed format) as a new revision',
+    description:
+      'Site admins only, until library changes go through review. Files are CSV/JSON Lines as in seeds/library/FORMAT.md; records match the current library by key and replace what differs. Any problem → 400 naming file, line and column, and nothing is applied.',
+    tags: ['library'],
+    access: { site: 'site_admin' },
+    request: { body: libraryImportInputSchema },
+    responses: { 201: libraryImportResultSchema },
+    handler: (ctx) => importLibraryFiles(ctx.deps.db, signedIn(ctx), ctx.meta, ctx.body),
   }),
 ];

@@ -22,7 +22,8 @@ export type AuditAction =
   | 'user.site_roles_changed'
   | 'user.disabled'
   | 'user.enabled'
-  | 'team.created';
+  | 'team.created'
+  | 'library.imported';
 
 export interface AuditEntry {
   action: AuditAction;

@@ -9,7 +9,10 @@ import type {
   SpeciesList,
   SpeciesQuery,
   SpeciesSummary,
+  LibraryImportInput,
+  LibraryImportResult,
 } from '@shared/schemas/library';
+import type { Principal, RequestMeta } from '../context';
 import type { Db } from '../db/client';
 import {
   libraryModels,
@@ -21,6 +24,10 @@ import {
   users,
 } from '../db/tables/index';
 import { AppError, errors } from '../errors';
+import { applyLibrarySet, SetConflictError } from '../library/apply-set';
+import { setRevisionDetail, withNewRevision } from '../library/revisions';
+import { readLibrarySet, type SetProblem } from '../library/seed-set';
+import { recordAudit } from './audit.service';
 import { presentModel, presentSource, presentValue, sourceOf, summarize } from '../library/present';
 import { elementsOfHill, speciesIndexOf } from '../library/search';
 import type { LibraryCache, LibrarySnapshot, SpeciesEntry } from '../library/snapshot';
@@ -243,4 +250,66 @@ export async function listRevisions(db: Db): Promise<RevisionList> {
     })),
     current: rows[0]?.revision.number ?? null,
   };
+}
+
+/**
+ * A site admin's import of library files (seed format): checked as a whole, then applied as one
+ * new revision with an audit entry — or, with any problem, refused with every problem named
+ * (file, line, column) and nothing written.
+ */
+export async function importLibraryFiles(
+  db: Db,
+  actor: Principal,
+  meta: RequestMeta,
+  input: LibraryImportInput,
+): Promise<LibraryImportResult> {
+  const { set, problems } = readLibrarySet(input.files, { complete: false });
+  if (problems.length > 0) throw importProblems(problems);
+  try {
+    const { number, result } = await withNewRevision(
+      db,
+      {
+        kind: 'import',
+        summary: input.summary,
+        actor: { id: actor.user.id, email: actor.user.email },
+        detail: { files: input.files.map((f) => f.name) },
+      },
+      async (tx, number) => {
+        const counts = await applyLibrarySet(tx, set, number);
+        if (Object.values(counts).every((n) => n === 0))
+          throw new AppError('unprocessable', 'The files change nothing in the current library: no revision was made.');
+        await setRevisionDetail(tx, number, { files: input.files.map((f) => f.name), counts });
+        await recordAudit(tx, {
+          action: 'library.imported',
+          actor: { id: actor.user.id, email: actor.user.email },
+          meta,
+          detail: { revision: number, counts, files: input.files.map((f) => f.name) },
+        });
+        return counts;
+      },
+    );
+    return { revision: number, counts: result };
+  } catch (error) {
+    if (error instanceof SetConflictError) throw importProblems(error.problems);
+    throw error;
+  }
+}
+
+function importProblems(problems: SetProblem[]): AppError {
+  const shown = problems.slice(0, 200);
+  return new AppError(
+    'validation_failed',
+    `The files were not imported: ${problems.length} problem(s), e.g. ${problems
+      .slice(0, 3)
+      .map((p) => `${p.file} line ${p.line}${p.column ? ` (${p.column})` : ''}: ${p.message}`)
+      .join('; ')}.`,
+    {
+      issues: shown.map((p) => ({
+        path: ['body', 'files', p.file, `line ${p.line}`, ...(p.column ? [p.column] : [])],
+        message: p.message,
+      })),
+      problems: shown,
+      total: problems.length,
+    },
+  );
 }

@@ -8,7 +8,8 @@
  *   isomers and coexisting forms (`C4H10(g, 2-methylpropane)`, `C(cr, diamond)`), matched against
  *   the entry's descriptor, name or synonyms, case-insensitive;
  * - without a descriptor, several entries of one phase resolve only when exactly one of them is
- *   written with the same formula text (`C2H5OH` is ethanol, not dimethyl ether), or when the
+ *   written with the same formula text, as its formula or a synonym (`C2H5OH` is ethanol, not
+ *   dimethyl ether), or when the
  *   species is an element and one entry is its reference state — both said in a warning;
  * - without a phase, a single entry is used with a warning; several are never guessed.
  */
@@ -123,8 +124,9 @@ export function resolveSpecies<E extends ResolvableEntry>(
       candidates: pool,
     };
   }
-  // Several entries of one phase: isomers or coexisting forms.
-  const sameText = pool.filter((e) => e.formula === species.formula);
+  // Several entries of one phase: isomers or coexisting forms. The text as written (C2H5OH,
+  // CH3OCH3) names one when it is that entry's formula or one of its formula synonyms.
+  const sameText = pool.filter((e) => e.formula === species.formula || e.synonyms.includes(species.formula));
   if (sameText.length === 1) {
     const entry = sameText[0]!;
     return {

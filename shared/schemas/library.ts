@@ -226,3 +226,30 @@ export type Revision = z.infer<typeof revisionSchema>;
 
 export const revisionListSchema = z.object({ items: z.array(revisionSchema), current: z.number().int().nullable() });
 export type RevisionList = z.infer<typeof revisionListSchema>;
+
+/** POST /api/v1/library/imports: library files in the seed format (seeds/library/FORMAT.md). */
+export const libraryImportInputSchema = z.object({
+  summary: z.string().trim().min(3, 'Say in a few words what this import changes.').max(500),
+  files: z
+    .array(
+      z.object({
+        name: z.string().min(1).max(200),
+        text: z.string().max(1_000_000, 'A file may hold up to 1,000,000 characters; split larger imports.'),
+      }),
+    )
+    .min(1, 'Send at least one file.')
+    .max(50),
+});
+export type LibraryImportInput = z.infer<typeof libraryImportInputSchema>;
+
+export const libraryImportResultSchema = z.object({
+  revision: z.number().int(),
+  counts: z.object({
+    sources: z.number().int(),
+    species: z.number().int(),
+    values: z.number().int(),
+    models: z.number().int(),
+    selections: z.number().int(),
+  }),
+});
+export type LibraryImportResult = z.infer<typeof libraryImportResultSchema>;

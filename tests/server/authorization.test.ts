@@ -59,6 +59,7 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/species': 'public',
   'GET /api/v1/species/:speciesId': 'public',
   'GET /api/v1/library/revisions': 'public',
+  'POST /api/v1/library/imports': { site: 'site_admin' },
   'POST /api/v1/reaction-enthalpy': 'public',
   'POST /api/v1/reaction-heat': 'public',
   'GET /api/v1/test/curator-probe': { site: 'curator' },
