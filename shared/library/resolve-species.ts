@@ -86,7 +86,7 @@ export function resolveSpecies<E extends ResolvableEntry>(
     };
   }
   const phase = species.phase === 's' ? 'cr' : species.phase;
-  let pool: E[] = phase === null ? [...entries] : entries.filter((e) => e.phase === phase);
+  const pool: E[] = phase === null ? [...entries] : entries.filter((e) => e.phase === phase);
   if (pool.length === 0) {
     const held = [...new Set(entries.map((e) => phaseWords[e.phase] ?? e.phase))].join(', ');
     return {

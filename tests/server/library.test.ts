@@ -8,16 +8,7 @@ let t: TestApp;
 
 beforeAll(async () => {
   t = await startTestApp();
-  await seedLibrary(
-    t.db,
-    readLibraryFolder().map((f) => ({
-      ...f,
-      text: f.text
-        .split('\n')
-        .filter((l) => !l.includes('CdSO4·8/3H2O') && !l.includes('CaSO4·1/2H2O'))
-        .join('\n'),
-    })),
-  );
+  await seedLibrary(t.db);
 });
 afterAll(() => t.close());
 
