@@ -2,6 +2,7 @@ import { ChemistryError } from '@shared/chemistry/index';
 import {
   batchScreening,
   BATCH_SCREENING_CAUTIONS,
+  fuelHeatingValues,
   extentOfReaction,
   limitingReactant,
   prepareThermoModel,
@@ -185,7 +186,7 @@ function present(
   resolved: ResolvedTerm[],
   result: ReactionThermoResult,
   warnings: ReactionEnthalpyResult['warnings'],
-): ReactionEnthalpyResult {
+): Omit<ReactionEnthalpyResult, 'heatingValues' | 'curve'> {
   const u = result.uncertainty.standardUncertainty;
   const byKey = new Map(resolved.map((t) => [t.species.key, t]));
   const contributionOf = new Map(result.uncertainty.contributions.map((c) => [c.species, c]));
@@ -293,8 +294,78 @@ export async function evaluateReactionEnthalpy(
   const reaction = readBalancedReaction(input.equation);
   const temperature = temperatureOf(input.temperature);
   const { resolved, warnings } = resolveTerms(snapshot, reaction.terms);
-  const result = evaluate(snapshot, resolved, temperature, input.constantCpEstimate ?? false);
-  return present(snapshot, reaction.equation, resolved, result, [...reaction.warnings, ...warnings]);
+  const constantCp = input.constantCpEstimate ?? false;
+  const result = evaluate(snapshot, resolved, temperature, constantCp);
+  const reply = present(snapshot, reaction.equation, resolved, result, [...reaction.warnings, ...warnings]);
+  const reference = temperature === 298.15 || constantCp ? result : evaluate(snapshot, resolved, 298.15, false);
+  return {
+    ...reply,
+    heatingValues: heatingValuesOf(snapshot, resolved, reference),
+    curve: input.curve ? curveOf(resolved, input.curve, constantCp) : null,
+  };
+}
+
+/** ΔrH°(T) over a range for a plot; temperatures where some model does not reach are gaps. */
+function curveOf(
+  resolved: ResolvedTerm[],
+  curve: NonNullable<ReactionEnthalpyInput['curve']>,
+  constantCp: boolean,
+): NonNullable<ReactionEnthalpyResult['curve']> {
+  const terms = thermoTerms(resolved);
+  const points: { temperature: number; deltaH: number }[] = [];
+  const gaps: { temperature: number; reason: string }[] = [];
+  for (let i = 0; i < curve.points; i++) {
+    const t = curve.from + ((curve.to - curve.from) * i) / (curve.points - 1);
+    try {
+      const r = reactionPropertiesAt(terms, { temperature: t, method: constantCp ? 'constant-cp' : 'integrated' });
+      points.push({ temperature: t, deltaH: r.enthalpy });
+    } catch (error) {
+      if (!(error instanceof ReactionThermoDataError)) throw error;
+      gaps.push({ temperature: t, reason: error.message });
+    }
+  }
+  return { points, gaps };
+}
+
+/**
+ * Higher and lower heating values when the reaction is a combustion: one fuel and O2 as the
+ * reactants, water among the products; both water values must be in the library.
+ */
+function heatingValuesOf(
+  snapshot: LibrarySnapshot,
+  resolved: ResolvedTerm[],
+  reference: ReactionThermoResult,
+): ReactionEnthalpyResult['heatingValues'] {
+  const reactants = resolved.filter((t) => t.side === 'reactant');
+  const oxygen = reactants.filter((t) => t.species.key === 'O2(g)');
+  const fuels = reactants.filter((t) => t.species.key !== 'O2(g)');
+  const water = resolved.filter((t) => t.side === 'product' && t.species.hill === 'H2O' && t.species.charge === 0);
+  if (oxygen.length === 0 || fuels.length !== 1 || water.length !== 1) return null;
+  if (reference.referenceEnthalpy === null || !(reference.referenceEnthalpy < 0)) return null;
+  const fuel = fuels[0]!;
+  const waterEntries = snapshot.speciesByHill.get(hillKey('H2O', 0)) ?? [];
+  const liquid = waterEntries.find((s) => s.phase === 'l');
+  const gas = waterEntries.find((s) => s.phase === 'g');
+  const hl = liquid && selectedValue(snapshot, liquid.id, 'dfH298');
+  const hg = gas && selectedValue(snapshot, gas.id, 'dfH298');
+  const waterPhase = water[0]!.species.phase;
+  if (!hl || !hg || (waterPhase !== 'l' && waterPhase !== 'g')) return null;
+  const values = fuelHeatingValues({
+    combustionEnthalpy: reference.referenceEnthalpy,
+    waterPhase,
+    fuelCoefficient: fuel.coefficient,
+    waterCoefficient: water[0]!.coefficient,
+    fuelMolarMass: fuel.species.molarMass,
+    waterVaporizationEnthalpy: hg.value - hl.value,
+    standardUncertainty: reference.uncertaintyComplete ? reference.uncertainty.standardUncertainty : null,
+  });
+  const present = (v: typeof values.higher) => ({
+    label: v.label,
+    perMole: v.perMole,
+    perKilogram: v.perKilogram,
+    uncertaintyPerMole: v.standardUncertaintyPerMole,
+  });
+  return { fuel: fuel.species.key, higher: present(values.higher), lower: present(values.lower) };
 }
 
 const pressureUnit = { Pa: 'Pa', kPa: 'kPa', bar: 'bar', atm: 'atm' } as const;

@@ -23,6 +23,15 @@ export const reactionEnthalpyInputSchema = z.object({
   revision: revisionNumberSchema.optional(),
   /** Use Cp(298.15 K) of each species as constant instead of its model (flagged in the reply). */
   constantCpEstimate: z.boolean().optional(),
+  /** Also ΔrH° at evenly spaced temperatures from `from` to `to` (K), for a plot; at most 200 points. */
+  curve: z
+    .object({
+      from: finiteNumber.positive('Temperatures are above 0 K.'),
+      to: finiteNumber.positive('Temperatures are above 0 K.'),
+      points: z.number().int().min(2).max(200).default(50),
+    })
+    .refine((c) => c.to > c.from, { message: 'The curve must run from a lower to a higher temperature.', path: ['to'] })
+    .optional(),
 });
 export type ReactionEnthalpyInput = z.infer<typeof reactionEnthalpyInputSchema>;
 
@@ -36,6 +45,15 @@ export const warningSchema = z.object({
   code: z.string(),
   message: z.string(),
   term: z.number().int().optional(),
+});
+
+const heatingValueSchema = z.object({
+  label: z.string(),
+  /** kJ per mol of fuel. */
+  perMole: z.number(),
+  /** kJ per kg of fuel. */
+  perKilogram: z.number(),
+  uncertaintyPerMole: z.number().nullable(),
 });
 
 export const enthalpyTermSchema = z.object({
@@ -95,6 +113,25 @@ export const reactionEnthalpyResultSchema = z.object({
   constantCpEstimate: z.boolean(),
   libraryRevision: z.number().int(),
   sources: z.array(sourceRefSchema),
+  /**
+   * For a combustion (one fuel burnt in O2 with water among the products): higher (water liquid)
+   * and lower (water vapour) heating values at 298.15 K, positive for heat given off.
+   */
+  heatingValues: z
+    .object({
+      fuel: z.string(),
+      higher: heatingValueSchema,
+      lower: heatingValueSchema,
+    })
+    .nullable(),
+  /** ΔrH°(T) in kJ/mol at the temperatures asked in `curve`; temperatures outside a species' model are left out. */
+  curve: z
+    .object({
+      points: z.array(z.object({ temperature: z.number(), deltaH: z.number() })),
+      /** Temperatures that had no value, with the reason. */
+      gaps: z.array(z.object({ temperature: z.number(), reason: z.string() })),
+    })
+    .nullable(),
   warnings: z.array(warningSchema),
 });
 export type ReactionEnthalpyResult = z.infer<typeof reactionEnthalpyResultSchema>;

@@ -170,6 +170,29 @@ describe('POST /api/v1/reaction-enthalpy', () => {
     }
   });
 
+  it('gives higher and lower heating values of a fuel, labelled', async () => {
+    const res = await evaluate({ equation: 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)' });
+    expect(res.status).toBe(200);
+    // Methane: HHV ≈ 55.5 MJ/kg, LHV ≈ 50.0 MJ/kg (engineering handbooks, e.g. Perry's; from memory).
+    expect(res.body.heatingValues.fuel).toBe('CH4(g)');
+    expect(res.body.heatingValues.higher.perKilogram / 1000).toBeCloseTo(55.5, 0);
+    expect(res.body.heatingValues.lower.perKilogram / 1000).toBeCloseTo(50.0, 0);
+    expect(res.body.heatingValues.higher.label).toMatch(/higher/);
+    const notFuel = await evaluate({ equation: 'N2(g) + 3 H2(g) -> 2 NH3(g)' });
+    expect(notFuel.body.heatingValues).toBeNull();
+  });
+
+  it('returns a ΔrH°(T) curve and leaves out the temperatures a model does not reach', async () => {
+    const res = await evaluate({
+      equation: 'H2(g) + 1/2 O2(g) -> H2O(l)',
+      curve: { from: 300, to: 700, points: 5 },
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.curve.points.length + res.body.curve.gaps.length).toBe(5);
+    expect(res.body.curve.gaps.length).toBeGreaterThan(0);
+    expect(res.body.curve.points[0].temperature).toBe(300);
+  });
+
   it('takes °C and °F', async () => {
     const celsius = await evaluate({
       equation: 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)',
