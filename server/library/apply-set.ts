@@ -3,9 +3,17 @@ import { eq, isNull } from 'drizzle-orm';
 import { standardUncertainty, type StatedUncertainty } from '@shared/chemistry/thermo/index';
 import type { LibraryProperty } from '@shared/schemas/library-core';
 import type { Executor } from '../db/client';
-import { libraryModels, librarySelections, librarySources, librarySpecies, libraryValues } from '../db/tables/index';
+import {
+  libraryModels,
+  libraryReactions,
+  librarySelections,
+  librarySources,
+  librarySpecies,
+  libraryValues,
+} from '../db/tables/index';
 import {
   statedRange,
+  type ReactionRecord,
   type LibrarySet,
   type ModelRecord,
   type Origin,
@@ -28,6 +36,7 @@ export interface ApplyCounts {
   values: number;
   models: number;
   selections: number;
+  reactions: number;
 }
 
 /** Thrown when a set that read cleanly cannot be applied to the current library. */
@@ -62,7 +71,7 @@ function numericEqual(a: string | null, b: string | null): boolean {
 }
 
 export async function applyLibrarySet(tx: Executor, set: LibrarySet, revision: number): Promise<ApplyCounts> {
-  const counts: ApplyCounts = { sources: 0, species: 0, values: 0, models: 0, selections: 0 };
+  const counts: ApplyCounts = { sources: 0, species: 0, values: 0, models: 0, selections: 0, reactions: 0 };
   const close = { validTo: revision };
 
   // Sources by key.
@@ -283,7 +292,76 @@ export async function applyLibrarySet(tx: Executor, set: LibrarySet, revision: n
   }
   await insertChunks(newSelections, (chunk) => tx.insert(librarySelections).values(chunk));
   counts.selections = newSelections.length;
+  counts.reactions = await applyReactions(tx, set.reactions, revision, speciesIdByKey, sourceId);
   return counts;
+}
+
+/** Measured reactions by key; their species resolve to library ids (finite-molality solutes stay keys). */
+async function applyReactions(
+  tx: Executor,
+  reactions: ReactionRecord[],
+  revision: number,
+  speciesIdByKey: Map<string, string>,
+  sourceId: (record: { source: string; origin: Origin }) => string,
+): Promise<number> {
+  if (reactions.length === 0) return 0;
+  const problems: SetProblem[] = [];
+  const current = await tx.select().from(libraryReactions).where(isNull(libraryReactions.validTo));
+  const byKey = new Map(current.map((r) => [r.key, r]));
+  const rows: (typeof libraryReactions.$inferInsert)[] = [];
+  for (const r of reactions) {
+    const terms = r.terms.map((t) => {
+      const speciesId = t.finiteMolality ? null : (speciesIdByKey.get(t.key) ?? null);
+      if (!t.finiteMolality && !speciesId)
+        problems.push({ ...r.origin, column: 'equation', message: `unknown species ${t.key}.` });
+      return { speciesId, key: t.key, coefficient: t.coefficient };
+    });
+    const derived = standardUncertainty(statedUncertaintyOf(r));
+    const row = {
+      key: r.key,
+      equation: r.equation,
+      terms,
+      deltaH: r.deltaH,
+      uncertaintyKind: r.uncertaintyKind,
+      uncertaintyStated: r.uncertainty,
+      coverageK: r.k,
+      standardUncertainty: derived.u,
+      uncertaintyRule: derived.rule,
+      temperature: r.temperature,
+      method: r.method,
+      molality: r.molality,
+      sourceId: sourceId(r),
+      tableRef: r.table,
+      provenance: r.provenance,
+      provenanceNote: r.note,
+    };
+    const existing = byKey.get(r.key);
+    if (
+      existing &&
+      numericEqual(existing.deltaH, row.deltaH) &&
+      numericEqual(existing.uncertaintyStated, row.uncertaintyStated) &&
+      sameContent(existing, row, [
+        'equation',
+        'terms',
+        'uncertaintyKind',
+        'coverageK',
+        'temperature',
+        'method',
+        'molality',
+        'sourceId',
+        'tableRef',
+        'provenance',
+        'provenanceNote',
+      ])
+    )
+      continue;
+    if (existing)
+      await tx.update(libraryReactions).set({ validTo: revision }).where(eq(libraryReactions.rowId, existing.rowId));
+    rows.push({ ...row, id: existing?.id ?? randomUUID(), validFrom: revision });
+  }
+  if (problems.length > 0) throw new SetConflictError(problems);
+  await insertChunks(rows, (chunk) => tx.insert(libraryReactions).values(chunk));
+  return rows.length;
 }
 
 function modelRow(m: ModelRecord, speciesId: string, sourceId: string) {

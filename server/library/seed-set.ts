@@ -1,6 +1,6 @@
 import Papa from 'papaparse';
 import { z } from 'zod';
-import { molarMass, parseFormula } from '@shared/chemistry/index';
+import { balanceParsedEquation, molarMass, parseEquation, parseFormula } from '@shared/chemistry/index';
 import { thermoModelIssues, validRange } from '@shared/chemistry/thermo/index';
 import { thermoFormSchema, thermoScaleSchema } from '@shared/schemas/thermo';
 import {
@@ -116,12 +116,45 @@ export interface SelectionRecord {
   reason: string;
 }
 
+export const reactionMethods = [
+  'combustion-calorimetry',
+  'solution-calorimetry',
+  'reaction-calorimetry',
+  'equilibrium',
+  'phase-change',
+  'computed',
+  'other',
+] as const;
+export type ReactionMethod = (typeof reactionMethods)[number];
+
+export interface ReactionRecord {
+  origin: Origin;
+  key: string;
+  /** The equation as written in the file. */
+  equation: string;
+  /** Signed terms: species key (finite-molality solutes keyed with their molality) and exact coefficient text. */
+  terms: { key: string; coefficient: string; finiteMolality: boolean }[];
+  deltaH: string;
+  uncertaintyKind: UncertaintyKind;
+  uncertainty: string | null;
+  k: number | null;
+  /** K. */
+  temperature: number;
+  method: ReactionMethod;
+  molality: number | null;
+  source: string;
+  table: string | null;
+  provenance: Provenance;
+  note: string | null;
+}
+
 export interface LibrarySet {
   sources: SourceRecord[];
   species: SpeciesRecord[];
   values: ValueRecord[];
   models: ModelRecord[];
   selections: SelectionRecord[];
+  reactions: ReactionRecord[];
 }
 
 const decimalText = /^-?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
@@ -237,6 +270,28 @@ const modelLine = z
       ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
   });
 
+const reactionRow = z.object({
+  key: z
+    .string()
+    .trim()
+    .regex(/^[a-z0-9][a-z0-9.-]*$/, 'must be a lower-case slug such as combustion-methane'),
+  equation: requiredText,
+  delta_h: decimal,
+  unit: z.literal('kJ/mol', { message: 'must be kJ/mol' }),
+  uncertainty_kind: uncertaintyKindSchema,
+  uncertainty: optionalDecimal,
+  k: optionalDecimal.transform((v) => (v === null ? null : Number(v))),
+  temperature: decimal.transform(Number).refine((t) => t > 0, 'must be above 0 K'),
+  method: z.enum(reactionMethods),
+  molality: optionalDecimal
+    .transform((v) => (v === null ? null : Number(v)))
+    .refine((m) => m === null || m > 0, 'must be above 0 mol/kg'),
+  source: requiredText,
+  table: optionalText,
+  provenance: provenanceSchema,
+  note: optionalText,
+});
+
 const selectionRow = z.object({
   species: requiredText,
   property: z.enum(['dfH298', 'S298', 'cp']),
@@ -339,16 +394,35 @@ const headers = {
     'note',
   ],
   selections: ['species', 'property', 'source', 'reason'],
+  reactions: [
+    'key',
+    'equation',
+    'delta_h',
+    'unit',
+    'uncertainty_kind',
+    'uncertainty',
+    'k',
+    'temperature',
+    'method',
+    'molality',
+    'source',
+    'table',
+    'provenance',
+    'note',
+  ],
 } as const;
 
 /** Which kind of records a file holds, from its name. */
-export function fileKind(name: string): 'sources' | 'species' | 'values' | 'models' | 'selections' | null {
+export function fileKind(
+  name: string,
+): 'sources' | 'species' | 'values' | 'models' | 'selections' | 'reactions' | null {
   const base = name.split('/').pop() ?? name;
   if (base === 'sources.csv') return 'sources';
   if (base === 'selections.csv') return 'selections';
   if (/^species(-[\w.-]+)?\.csv$/.test(base)) return 'species';
   if (/^values(-[\w.-]+)?\.csv$/.test(base)) return 'values';
   if (/^models(-[\w.-]+)?\.jsonl$/.test(base)) return 'models';
+  if (/^reactions(-[\w.-]+)?\.csv$/.test(base)) return 'reactions';
   return null;
 }
 
@@ -436,6 +510,66 @@ function toValue(r: z.output<typeof valueRow>, origin: Origin, problems: SetProb
   };
 }
 
+/** The species key of a parsed species: `formula(phase[, descriptor])`, `s` read as `cr`. */
+export function keyOfSpecies(species: { formula: string; phase: string | null; descriptor: string | null }): string {
+  const phase = species.phase === 's' ? 'cr' : species.phase;
+  const inside = [phase, species.descriptor].filter(Boolean).join(', ');
+  return inside ? `${species.formula}(${inside})` : species.formula;
+}
+
+/** Reads a measured reaction's equation: every species with a phase, balanced as written. */
+function toReaction(r: z.output<typeof reactionRow>, origin: Origin, problems: SetProblem[]): ReactionRecord | null {
+  const fail = (column: string, message: string) => {
+    problems.push({ ...origin, column, message });
+    return null;
+  };
+  let parsed: ReturnType<typeof parseEquation>;
+  try {
+    parsed = parseEquation(r.equation);
+  } catch (error) {
+    return fail('equation', (error as Error).message);
+  }
+  const unphased = parsed.terms.filter((t) => !t.species.phase).map((t) => t.species.formula);
+  if (unphased.length > 0) return fail('equation', `every species needs its phase: ${unphased.join(', ')}.`);
+  if (parsed.heatTerms.length > 0 || parsed.enthalpy)
+    return fail('equation', 'write ΔH in the delta_h column, not in the equation.');
+  const balance = balanceParsedEquation(parsed);
+  if (!balance.asGiven) return fail('equation', `it does not balance as written (balanced: ${balance.equation}).`);
+  if (r.uncertainty_kind === 'none' && r.uncertainty !== null)
+    return fail('uncertainty', 'uncertainty_kind none takes no uncertainty.');
+  if (r.uncertainty_kind !== 'none' && r.uncertainty === null)
+    return fail('uncertainty', `uncertainty_kind ${r.uncertainty_kind} needs an uncertainty.`);
+  if ((r.uncertainty_kind === 'expanded') !== (r.k !== null))
+    return fail('k', 'a coverage factor k goes with an expanded uncertainty, and only with one.');
+  const aqueous = parsed.terms.some((t) => t.species.phase === 'aq');
+  if (r.molality !== null && !aqueous) return fail('molality', 'a molality needs aqueous species in the equation.');
+  const terms = parsed.terms.map((t) => {
+    const finiteMolality = r.molality !== null && t.species.phase === 'aq';
+    const key = finiteMolality
+      ? keyOfSpecies({ ...t.species, descriptor: `${r.molality} mol/kg` })
+      : keyOfSpecies(t.species);
+    const sign = t.side === 'reactant' ? '-' : '';
+    return { key, coefficient: `${sign}${t.coefficient}`, finiteMolality };
+  });
+  return {
+    origin,
+    key: r.key,
+    equation: r.equation,
+    terms,
+    deltaH: r.delta_h,
+    uncertaintyKind: r.uncertainty_kind,
+    uncertainty: r.uncertainty,
+    k: r.k,
+    temperature: r.temperature,
+    method: r.method,
+    molality: r.molality,
+    source: r.source,
+    table: r.table,
+    provenance: r.provenance,
+    note: r.note,
+  };
+}
+
 function readModels(file: LibraryFile, problems: SetProblem[]): ModelRecord[] {
   const out: ModelRecord[] = [];
   file.text.split('\n').forEach((text, i) => {
@@ -510,6 +644,15 @@ function crossCheck(set: LibrarySet, problems: SetProblem[], complete: boolean):
     if (modelKeys.has(id)) report(m, `a model of ${m.species} from ${m.source} is given twice.`);
     modelKeys.add(id);
   }
+  const reactionKeys = new Set<string>();
+  for (const r of set.reactions) {
+    if (reactionKeys.has(r.key)) report(r, `reaction ${r.key} is given twice.`, 'key');
+    reactionKeys.add(r.key);
+    if (complete && !sourceKeys.has(r.source)) report(r, `unknown source ${r.source}.`, 'source');
+    if (!complete) continue;
+    const unknown = r.terms.filter((t) => !t.finiteMolality && !speciesKeys.has(t.key)).map((t) => t.key);
+    if (unknown.length > 0) report(r, `unknown species ${unknown.join(', ')}.`, 'equation');
+  }
   const selected = new Set<string>();
   for (const s of set.selections) {
     const id = `${s.species}|${s.property}`;
@@ -532,7 +675,7 @@ export function readLibrarySet(
   { complete = true }: { complete?: boolean } = {},
 ): { set: LibrarySet; problems: SetProblem[] } {
   const problems: SetProblem[] = [];
-  const set: LibrarySet = { sources: [], species: [], values: [], models: [], selections: [] };
+  const set: LibrarySet = { sources: [], species: [], values: [], models: [], selections: [], reactions: [] };
   for (const file of files) {
     switch (fileKind(file.name)) {
       case 'sources':
@@ -558,11 +701,18 @@ export function readLibrarySet(
         for (const { row, origin } of readCsv(file, headers.selections, selectionRow, problems))
           set.selections.push({ ...row, origin });
         break;
+      case 'reactions':
+        for (const { row, origin } of readCsv(file, headers.reactions, reactionRow, problems)) {
+          const record = toReaction(row, origin, problems);
+          if (record) set.reactions.push(record);
+        }
+        break;
       default:
         problems.push({
           file: file.name,
           line: 1,
-          message: 'Unknown file: name it sources.csv, species-*.csv, values-*.csv, models-*.jsonl or selections.csv.',
+          message:
+            'Unknown file: name it sources.csv, species-*.csv, values-*.csv, models-*.jsonl, reactions-*.csv or selections.csv.',
         });
     }
   }

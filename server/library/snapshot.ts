@@ -10,7 +10,15 @@ import type {
   UncertaintyKind,
 } from '@shared/schemas/library-core';
 import type { Executor } from '../db/client';
-import { libraryModels, librarySelections, librarySources, librarySpecies, libraryValues } from '../db/tables/index';
+import {
+  libraryModels,
+  libraryReactions,
+  librarySelections,
+  librarySources,
+  librarySpecies,
+  libraryValues,
+  type ReactionTermRow,
+} from '../db/tables/index';
 import { currentRevision } from './revisions';
 
 /**
@@ -99,6 +107,29 @@ export interface SelectionEntry {
   validFrom: number;
 }
 
+export interface ReactionEntry {
+  id: string;
+  key: string;
+  equation: string;
+  terms: ReactionTermRow[];
+  /** kJ/mol per mole of reaction as written, as a number and as the source printed it. */
+  deltaH: number;
+  deltaHText: string;
+  uncertaintyKind: UncertaintyKind;
+  uncertaintyStated: number | null;
+  coverageK: number | null;
+  standardUncertainty: number | null;
+  uncertaintyRule: string;
+  temperature: number;
+  method: string;
+  molality: number | null;
+  sourceId: string;
+  tableRef: string | null;
+  provenance: Provenance;
+  provenanceNote: string | null;
+  validFrom: number;
+}
+
 export interface LibrarySnapshot {
   revision: number;
   species: Map<string, SpeciesEntry>;
@@ -112,6 +143,7 @@ export interface LibrarySnapshot {
   models: Map<string, ModelEntry[]>;
   /** Selection per "speciesId|property". */
   selections: Map<string, SelectionEntry>;
+  reactions: ReactionEntry[];
 }
 
 /** Rows valid at revision r: valid_from ≤ r and (valid_to is null or valid_to > r). */
@@ -129,12 +161,13 @@ const numberOrNull = (v: string | null): number | null => (v === null ? null : N
 
 /** Reads the library at `revision` from the temporal tables. */
 export async function loadSnapshot(db: Executor, revision: number): Promise<LibrarySnapshot> {
-  const [sourceRows, speciesRows, valueRows, modelRows, selectionRows] = await Promise.all([
+  const [sourceRows, speciesRows, valueRows, modelRows, selectionRows, reactionRows] = await Promise.all([
     db.select().from(librarySources).where(validAt(librarySources, revision)),
     db.select().from(librarySpecies).where(validAt(librarySpecies, revision)),
     db.select().from(libraryValues).where(validAt(libraryValues, revision)),
     db.select().from(libraryModels).where(validAt(libraryModels, revision)),
     db.select().from(librarySelections).where(validAt(librarySelections, revision)),
+    db.select().from(libraryReactions).where(validAt(libraryReactions, revision)),
   ]);
   const snapshot: LibrarySnapshot = {
     revision,
@@ -146,6 +179,29 @@ export async function loadSnapshot(db: Executor, revision: number): Promise<Libr
     values: new Map(),
     models: new Map(),
     selections: new Map(),
+    reactions: reactionRows
+      .map((row) => ({
+        id: row.id,
+        key: row.key,
+        equation: row.equation,
+        terms: row.terms,
+        deltaH: Number(row.deltaH),
+        deltaHText: row.deltaH,
+        uncertaintyKind: row.uncertaintyKind,
+        uncertaintyStated: numberOrNull(row.uncertaintyStated),
+        coverageK: row.coverageK,
+        standardUncertainty: row.standardUncertainty,
+        uncertaintyRule: row.uncertaintyRule,
+        temperature: row.temperature,
+        method: row.method,
+        molality: row.molality,
+        sourceId: row.sourceId,
+        tableRef: row.tableRef,
+        provenance: row.provenance,
+        provenanceNote: row.provenanceNote,
+        validFrom: row.validFrom,
+      }))
+      .sort((a, b) => (a.key < b.key ? -1 : 1)),
   };
   for (const row of sourceRows) {
     const { rowId: _r, validFrom: _f, validTo: _t, ...source } = row;

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
 import { balanceRoutes } from './balance.routes';
+import { deriveRoutes } from './derive.routes';
 import { healthRoutes } from './health.routes';
 import { invitationRoutes } from './invitations.routes';
 import { libraryRoutes } from './library.routes';
@@ -25,6 +26,7 @@ const resourceRoutes: AnyRoute[] = [
   ...balanceRoutes,
   ...libraryRoutes,
   ...reactionEnthalpyRoutes,
+  ...deriveRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

@@ -51,7 +51,7 @@ interface ResolvedTerm extends ReactionTerm {
 const prepared = new WeakMap<ModelEntry, PreparedThermoModel>();
 
 /** A model checked and built once per snapshot entry (evaluation then costs microseconds). */
-function preparedModel(species: SpeciesEntry, model: ModelEntry): PreparedThermoModel {
+export function preparedModel(species: SpeciesEntry, model: ModelEntry): PreparedThermoModel {
   let p = prepared.get(model);
   if (!p) {
     p = prepareThermoModel({ species: species.key, scale: model.scale, forms: model.forms });

@@ -250,6 +250,7 @@ export const libraryImportResultSchema = z.object({
     values: z.number().int(),
     models: z.number().int(),
     selections: z.number().int(),
+    reactions: z.number().int(),
   }),
 });
 export type LibraryImportResult = z.infer<typeof libraryImportResultSchema>;

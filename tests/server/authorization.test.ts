@@ -62,6 +62,7 @@ const expectedAccess: Record<string, Access> = {
   'POST /api/v1/library/imports': { site: 'site_admin' },
   'POST /api/v1/reaction-enthalpy': 'public',
   'POST /api/v1/reaction-heat': 'public',
+  'POST /api/v1/derive': 'public',
   'GET /api/v1/test/curator-probe': { site: 'curator' },
 };
 

@@ -207,3 +207,51 @@ export const librarySelections = pgTable(
     index('library_selections_validity').on(t.validFrom, t.validTo),
   ],
 );
+
+/** One species of a measured reaction: a library species, or a finite-concentration solute. */
+export interface ReactionTermRow {
+  /** Library species id, or null for a species that exists only in reactions (`NaCl(aq, 0.1 mol/kg)`). */
+  speciesId: string | null;
+  /** The species key as written in the equation language. */
+  key: string;
+  /** Signed exact coefficient as fraction text: products positive, reactants negative. */
+  coefficient: string;
+}
+
+/** Measured reactions: ΔrH of a reaction as a source reports it. */
+export const libraryReactions = pgTable(
+  'library_reactions',
+  {
+    rowId: bigserial('row_id', { mode: 'number' }).primaryKey(),
+    id: uuid('id').notNull(),
+    key: text('key').notNull(),
+    equation: text('equation').notNull(),
+    terms: jsonb('terms').$type<ReactionTermRow[]>().notNull(),
+    /** kJ/mol per mole of reaction as written, at `temperature`. */
+    deltaH: numeric('delta_h').notNull(),
+    uncertaintyKind: text('uncertainty_kind').$type<UncertaintyKind>().notNull(),
+    uncertaintyStated: numeric('uncertainty_stated'),
+    coverageK: doublePrecision('coverage_k'),
+    standardUncertainty: doublePrecision('standard_uncertainty'),
+    uncertaintyRule: text('uncertainty_rule').notNull(),
+    /** K. */
+    temperature: doublePrecision('temperature').notNull(),
+    method: text('method').notNull(),
+    /** mol/kg for a solution or dilution enthalpy at finite concentration; null at infinite dilution. */
+    molality: doublePrecision('molality'),
+    sourceId: uuid('source_id').notNull(),
+    tableRef: text('table_ref'),
+    provenance: text('provenance').$type<Provenance>().notNull(),
+    provenanceNote: text('provenance_note'),
+    ...validity,
+  },
+  (t) => [
+    uniqueIndex('library_reactions_current_id')
+      .on(t.id)
+      .where(sql`${t.validTo} is null`),
+    uniqueIndex('library_reactions_current_key')
+      .on(t.key)
+      .where(sql`${t.validTo} is null`),
+    index('library_reactions_validity').on(t.validFrom, t.validTo),
+  ],
+);

@@ -264,7 +264,7 @@ function spans(reactions: KnownReaction[], species: string): boolean {
     const norm = Math.hypot(...v);
     if (norm > 1e-9) basis.push(v.map((x) => x / norm));
   }
-  let t = keys.map((k) => (k === species ? 1 : 0));
+  let t: number[] = keys.map((k) => (k === species ? 1 : 0));
   for (const b of basis) {
     const d = t.reduce((s, x, i) => s + x * b[i]!, 0);
     t = t.map((x, i) => x - d * b[i]!);

@@ -1,0 +1,20 @@
+import { deriveInputSchema, deriveResultSchema } from '@shared/schemas/derive';
+import { deriveReactionEnthalpy } from '../services/derive.service';
+import { defineRoute } from './registry';
+
+/** The Hess-cycle combiner: public and stable, like the other calculations. */
+export const deriveRoutes = [
+  defineRoute({
+    method: 'post',
+    path: '/derive',
+    summary: "Derive ΔH of a target reaction by Hess's law",
+    description:
+      "Searches exact-fraction combinations of known reactions (the library's formation reactions and measured reactions, reactions given with the request, or both) that add up to the target species by species and phase by phase. Routes are minimal, ranked by uncertainty, compared with the covariance of the inputs they share (χ² test), and combined by generalised least squares when they agree. Work limits: target ≤ 2,000 characters, ≤ 100 given reactions, ≤ 20 routes, route length, combinations examined and a time budget; a search stopped by a bound says so. Bad target text → 400 parse_error; an unreadable given reaction → 400 naming reactions.N; a given reaction that does not balance or lacks phases → 422 naming it.",
+    tags: ['calculations', 'library'],
+    access: 'public',
+    rateLimit: 'calc',
+    request: { body: deriveInputSchema },
+    responses: { 200: deriveResultSchema },
+    handler: ({ deps, body }) => deriveReactionEnthalpy(deps.library, body),
+  }),
+];
