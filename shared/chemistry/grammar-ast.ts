@@ -20,8 +20,9 @@ export type AstItem =
       end: number;
     };
 
+/** A hydrate or adduct part; `multiplier` n/d as typed (whole numbers), null when none was written. */
 export interface AstPart {
-  multiplier: number;
+  multiplier: { n: number; d: number } | null;
   items: AstItem[];
   start: number;
 }
@@ -66,10 +67,13 @@ export interface AstEnthalpy {
 }
 
 export interface AstEquation {
-  left: AstTerm[];
+  /** Terms in order; null for terms past the parser's `maxTerms` option (counted, not kept). */
+  left: Array<AstTerm | null>;
   arrow: { text: string; start: number; end: number };
-  right: AstTerm[];
+  right: Array<AstTerm | null>;
   enthalpy: AstEnthalpy | null;
+  /** Every term read, kept or not. */
+  termCount: number;
 }
 
 export interface AstFormulaOnly {
