@@ -12,7 +12,7 @@
  * 7. `listedBasis`: the basis cut to the work limit.
  */
 import { findPositiveCombination } from './cone';
-import { compositionMatrix, conserves, type CompositionMatrix } from './composition-matrix';
+import { compositionMatrix, conserves, matrixTotals, type CompositionMatrix } from './composition-matrix';
 import { elementTotals } from './element-table';
 import { BalanceInputError } from './errors';
 import { DEFAULT_WORK_LIMITS, resolveWorkLimits } from './limits';
@@ -99,12 +99,17 @@ export function balanceEquation(reading: ParsedEquation, options: BalanceOptions
     status: answer.status,
     reading,
     equation: {
-      terms: terms.map((t, j) => ({ ...t, coefficient: coefficients[j]!, coefficientWritten: true })),
+      terms: terms.map((t, j) => ({
+        species: t.species,
+        side: t.side,
+        coefficient: coefficients[j]!,
+        coefficientWritten: true,
+      })),
       enthalpy,
       equilibrium: reading.equilibrium,
     },
     asGiven,
-    givenTotals: asGiven ? null : elementTotals(terms),
+    givenTotals: asGiven ? null : (matrixTotals(matrix, terms, given) ?? elementTotals(terms)),
     dimension: answer.dimension,
     basis,
     basisTruncated: truncated,
@@ -263,10 +268,19 @@ interface Answer {
 /** Without fixed coefficients: as typed when they balance, else the smallest whole numbers or an example. */
 function chooseAnswer(kernel: Nullspace, example: bigint[], asGiven: boolean, given: Rat[]): Answer {
   const k = kernel.basis.length;
-  const whole = (v: bigint[]): Rat[] => v.map((x) => rat(x));
-  if (k === 1) return { status: 'balanced', coefficients: asGiven ? given : whole(example), dimension: 1, basis: [] };
+  if (k === 1)
+    return { status: 'balanced', coefficients: asGiven ? given : wholeNumbers(example), dimension: 1, basis: [] };
   if (asGiven) return { status: 'balanced', coefficients: given, dimension: k, basis: kernel.basis };
-  return { status: 'multiple', coefficients: whole(example), dimension: k, basis: kernel.basis };
+  return { status: 'multiple', coefficients: wholeNumbers(example), dimension: k, basis: kernel.basis };
+}
+
+function wholeNumbers(v: readonly bigint[]): Rat[] {
+  return v.map((x) => rat(x));
+}
+
+/** A homogenised vector (last entry t) as the coefficients x / t. */
+function scaledToT(v: readonly bigint[], n: number): Rat[] {
+  return v.slice(0, n).map((x) => rat(x, v[n]!));
 }
 
 /**
@@ -313,10 +327,14 @@ export function chooseWithFixed(
   const free = k.basis
     .filter((v) => v !== pivot)
     .map((v) => primitive(v.map((x, j) => x * pivot[n]! - pivot[j]! * v[n]!)).slice(0, n));
-  const scaledToT = (v: bigint[]): Rat[] => v.slice(0, n).map((x) => rat(x, v[n]!));
-  if (free.length === 0) return { status: 'balanced', coefficients: scaledToT(pivot), dimension: 0, basis: [] };
+  if (free.length === 0) return { status: 'balanced', coefficients: scaledToT(pivot, n), dimension: 0, basis: [] };
   const example = positiveExample(k);
-  return { status: 'multiple', coefficients: example ? scaledToT(example) : null, dimension: free.length, basis: free };
+  return {
+    status: 'multiple',
+    coefficients: example ? scaledToT(example, n) : null,
+    dimension: free.length,
+    basis: free,
+  };
 }
 
 // ----- 6. Normalising and ΔH ------------------------------------------------------------------

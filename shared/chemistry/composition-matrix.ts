@@ -1,6 +1,6 @@
 import { ArithmeticOverflow, BIG_INTEGERS, SAFE_INTEGERS, type IntegerArithmetic } from './arithmetic';
-import { lcmBigInt, type Rat } from './rational';
-import type { SpeciesTerm } from './types';
+import { lcmBigInt, ratOfInteger, type Rat } from './rational';
+import type { ElementTotals, SpeciesTerm } from './types';
 
 /**
  * The conservation equations of an equation as an integer matrix: one row per element (in order
@@ -17,6 +17,8 @@ export interface CompositionMatrix {
   keys: string[];
   /** Whole-number rows as safe integers when every entry is one, else as BigInts. */
   rows: number[][] | bigint[][];
+  /** True when no row was scaled (every count whole): the rows are the atom counts themselves. */
+  unscaled: boolean;
   /** Number of columns (terms). */
   cols: number;
 }
@@ -58,7 +60,7 @@ function wholeNumberMatrix(terms: readonly SpeciesTerm[]): CompositionMatrix | n
     keys.push('charge');
     rows.push(terms.map((t) => (t.side === 'reactant' ? 1 : -1) * t.species.charge));
   }
-  return { keys, rows, cols };
+  return { keys, rows, cols, unscaled: true };
 }
 
 function exactMatrix(terms: readonly SpeciesTerm[]): CompositionMatrix {
@@ -81,16 +83,18 @@ function exactMatrix(terms: readonly SpeciesTerm[]): CompositionMatrix {
       entries[r]![j] = t.side === 'reactant' ? c : { n: -c.n, d: c.d };
     }
   });
+  let unscaled = true;
   const rows: bigint[][] = entries.map((row) => {
     let l = 1n;
     for (const x of row) l = lcmBigInt(l, x.d);
+    if (l !== 1n) unscaled = false;
     return row.map((x) => (x.n * l) / x.d);
   });
   if (terms.some((t) => t.species.charge !== 0)) {
     keys.push('charge');
     rows.push(terms.map((t) => BigInt((t.side === 'reactant' ? 1 : -1) * t.species.charge)));
   }
-  return { keys, rows, cols };
+  return { keys, rows, cols, unscaled };
 }
 
 function conservesIn<T>(arith: IntegerArithmetic<T>, matrix: CompositionMatrix, x: readonly bigint[]): boolean {
@@ -107,8 +111,56 @@ function conservesIn<T>(arith: IntegerArithmetic<T>, matrix: CompositionMatrix, 
   return true;
 }
 
+// Coefficients below 2^15 on entries below 2^31 over at most 128 terms: every sum stays below 2^53.
+const SMALL_COEFFICIENT = 2n ** 15n;
+
+/** The whole-number coefficients as numbers when they are small enough for exact sums, else null. */
+function smallWholeNumbers(matrix: CompositionMatrix, coefficients: readonly Rat[]): number[] | null {
+  if (matrix.cols > 128 || typeof matrix.rows[0]?.[0] === 'bigint') return null;
+  const out: number[] = [];
+  for (const c of coefficients) {
+    if (c.d !== 1n || c.n >= SMALL_COEFFICIENT || c.n <= -SMALL_COEFFICIENT) return null;
+    out.push(Number(c.n));
+  }
+  return out;
+}
+
+/**
+ * Per-element totals of the coefficients on each side, read off the matrix (fast path of
+ * `elementTotals` for whole counts and small whole coefficients); null when that does not apply.
+ */
+export function matrixTotals(
+  matrix: CompositionMatrix,
+  terms: readonly SpeciesTerm[],
+  coefficients: readonly Rat[],
+): ElementTotals[] | null {
+  const g = matrix.unscaled ? smallWholeNumbers(matrix, coefficients) : null;
+  if (g === null) return null;
+  const rows = matrix.rows as number[][];
+  return matrix.keys.map((element, r) => {
+    let reactants = 0;
+    let products = 0;
+    const row = rows[r]!;
+    for (let j = 0; j < matrix.cols; j++) {
+      // Products were entered with the opposite sign.
+      if (terms[j]!.side === 'reactant') reactants += row[j]! * g[j]!;
+      else products -= row[j]! * g[j]!;
+    }
+    return { element, reactants: ratOfInteger(reactants), products: ratOfInteger(products) };
+  });
+}
+
 /** Whether the coefficients conserve every element and the charge: A x = 0, exactly. */
 export function conserves(matrix: CompositionMatrix, coefficients: readonly Rat[]): boolean {
+  const g = smallWholeNumbers(matrix, coefficients);
+  if (g !== null) {
+    for (const row of matrix.rows as number[][]) {
+      let sum = 0;
+      for (let j = 0; j < matrix.cols; j++) sum += row[j]! * g[j]!;
+      if (sum !== 0) return false;
+    }
+    return true;
+  }
   // Bring the coefficients to whole numbers (scaling does not change A x = 0).
   let l = 1n;
   for (const c of coefficients) if (c.d !== 1n) l = lcmBigInt(l, c.d);

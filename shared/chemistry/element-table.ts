@@ -7,8 +7,8 @@ import type { ElementTotals, Side, SpeciesTerm } from './types';
  * unit, exact. `coefficients` (term order) replace the terms' own when given.
  */
 export function elementTotals(terms: readonly SpeciesTerm[], coefficients?: readonly Rat[]): ElementTotals[] {
-  const coefficientOf = (j: number): Rat => coefficients?.[j] ?? terms[j]!.coefficient;
-  return wholeNumberTotals(terms, coefficientOf) ?? exactTotals(terms, coefficientOf);
+  const c = coefficients ?? terms.map((t) => t.coefficient);
+  return wholeNumberTotals(terms, c) ?? exactTotals(terms, c);
 }
 
 /** True when every row of `elementTotals(terms, coefficients)` has equal sides. */
@@ -16,7 +16,7 @@ export function isBalanced(terms: readonly SpeciesTerm[], coefficients?: readonl
   return elementTotals(terms, coefficients).every((row) => eq(row.reactants, row.products));
 }
 
-function exactTotals(terms: readonly SpeciesTerm[], coefficientOf: (j: number) => Rat): ElementTotals[] {
+function exactTotals(terms: readonly SpeciesTerm[], coefficients: readonly Rat[]): ElementTotals[] {
   const totals = new Map<string, { reactants: Rat; products: Rat }>();
   const bump = (key: string, side: Side, amount: Rat): void => {
     let row = totals.get(key);
@@ -25,14 +25,14 @@ function exactTotals(terms: readonly SpeciesTerm[], coefficientOf: (j: number) =
     else row.products = add(row.products, amount);
   };
   terms.forEach((t, j) => {
-    const c = coefficientOf(j);
+    const c = coefficients[j]!;
     const composition = t.species.composition;
     for (const symbol in composition) bump(symbol, t.side, mul(c, composition[symbol]!));
   });
   if (terms.some((t) => t.species.charge !== 0)) {
     totals.set('charge', { reactants: ZERO, products: ZERO });
     terms.forEach((t, j) => {
-      if (t.species.charge !== 0) bump('charge', t.side, mul(coefficientOf(j), ratOfInteger(t.species.charge)));
+      if (t.species.charge !== 0) bump('charge', t.side, mul(coefficients[j]!, ratOfInteger(t.species.charge)));
     });
   }
   return [...totals].map(([element, { reactants, products }]) => ({ element, reactants, products }));
@@ -42,13 +42,13 @@ function exactTotals(terms: readonly SpeciesTerm[], coefficientOf: (j: number) =
 // below 2^20 in size: products stay below 2^40 and sums of up to 1,000 of them below 2^50, exact in
 // doubles. Null otherwise (the exact path runs instead).
 const SMALL = 2n ** 20n;
-function wholeNumberTotals(terms: readonly SpeciesTerm[], coefficientOf: (j: number) => Rat): ElementTotals[] | null {
+function wholeNumberTotals(terms: readonly SpeciesTerm[], coefficients: readonly Rat[]): ElementTotals[] | null {
   if (terms.length > 1000) return null;
   const totals = new Map<string, [number, number]>();
   let charged = false;
   for (let j = 0; j < terms.length; j++) {
     const t = terms[j]!;
-    const c = coefficientOf(j);
+    const c = coefficients[j]!;
     if (c.d !== 1n || c.n >= SMALL || c.n <= -SMALL) return null;
     const k = t.side === 'reactant' ? 0 : 1;
     const composition = t.species.composition;
@@ -66,7 +66,7 @@ function wholeNumberTotals(terms: readonly SpeciesTerm[], coefficientOf: (j: num
   }
   if (charged) {
     const row: [number, number] = [0, 0];
-    terms.forEach((t, j) => (row[t.side === 'reactant' ? 0 : 1] += Number(coefficientOf(j).n) * t.species.charge));
+    terms.forEach((t, j) => (row[t.side === 'reactant' ? 0 : 1] += Number(coefficients[j]!.n) * t.species.charge));
     totals.set('charge', row);
   }
   const out: ElementTotals[] = [];

@@ -125,22 +125,23 @@ export function formatEnthalpy(enthalpy: Pick<EnthalpyValue, 'value' | 'uncertai
  * unicode/html; -> or <=> in text and mhchem) and ΔH when known.
  */
 export function formatEquation(model: EquationModel, format: FormulaFormat): string {
-  const side = (s: 'reactant' | 'product'): string => {
-    let out = '';
-    for (const t of model.terms) {
-      if (t.side !== s) continue;
-      const c = t.coefficient;
-      out +=
-        (out === '' ? '' : ' + ') + (c.n === 1n && c.d === 1n ? '' : `${ratText(c)} `) + speciesBody(t.species, format);
-    }
-    return out;
-  };
   const equilibrium = model.equilibrium;
   const arrow = format === 'text' || format === 'mhchem' ? (equilibrium ? '<=>' : '->') : equilibrium ? '⇌' : '→';
-  const core = `${side('reactant')} ${arrow} ${side('product')}`;
+  const core = `${sideText(model, 'reactant', format)} ${arrow} ${sideText(model, 'product', format)}`;
   if (format === 'mhchem') {
     const tail = model.enthalpy ? ` \\quad ${formatEnthalpy(model.enthalpy, 'mhchem')}` : '';
     return `\\ce{${core}}${tail}`;
   }
   return core + (model.enthalpy ? `, ${formatEnthalpy(model.enthalpy, format)}` : '');
+}
+
+function sideText(model: EquationModel, side: 'reactant' | 'product', format: FormulaFormat): string {
+  let out = '';
+  for (const t of model.terms) {
+    if (t.side !== side) continue;
+    const c = t.coefficient;
+    out +=
+      (out === '' ? '' : ' + ') + (c.n === 1n && c.d === 1n ? '' : `${ratText(c)} `) + speciesBody(t.species, format);
+  }
+  return out;
 }

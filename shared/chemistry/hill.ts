@@ -16,61 +16,79 @@ import type { Composition, FormulaItem, FormulaPart } from './types';
  * crystallographic "sum formula" writes fractional counts the same way.)
  */
 export function hillFormula(composition: Composition): string {
-  const symbols: string[] = [];
-  for (const s in composition) if (composition[s]!.n !== 0n) symbols.push(s);
-  if (symbols.length === 0) return 'e';
-  symbols.sort(compareSymbols);
   let out = '';
-  if (composition.C) {
-    // Carbon first, then H, D, T; the rest stays alphabetical.
-    out = term('C', composition.C) + term('H', composition.H) + term('D', composition.D) + term('T', composition.T);
-    for (const s of symbols) if (s !== 'C' && s !== 'H' && s !== 'D' && s !== 'T') out += term(s, composition[s]);
-    return out;
+  for (const symbol of hillOrder(Object.keys(composition), composition.C !== undefined && composition.C.n !== 0n)) {
+    const count = composition[symbol]!;
+    if (count.n === 0n) continue;
+    out += count.n === 1n && count.d === 1n ? symbol : symbol + ratDecimalOrFraction(count);
   }
-  for (const s of symbols) out += term(s, composition[s]);
-  return out;
+  return out === '' ? 'e' : out;
 }
 
-function term(symbol: string, count: Rat | undefined): string {
-  if (!count || count.n === 0n) return '';
-  if (count.d === 1n && count.n === 1n) return symbol;
-  return symbol + ratDecimalOrFraction(count);
+/** The same Hill formula from whole-number counts (the usual case, without BigInt). */
+function hillFormulaOfCounts(counts: ReadonlyMap<string, number>): string {
+  let out = '';
+  const carbon = counts.get('C');
+  for (const symbol of hillOrder([...counts.keys()], carbon !== undefined && carbon !== 0)) {
+    const count = counts.get(symbol)!;
+    if (count === 0) continue;
+    out += count === 1 ? symbol : symbol + String(count);
+  }
+  return out === '' ? 'e' : out;
 }
 
-// Plain code-unit comparison: symbols are ASCII letters, "C" < "Ca" < "Cl" as Hill order requires.
-function compareSymbols(a: string, b: string): number {
-  return a < b ? -1 : a > b ? 1 : 0;
+const CARBON_FIRST = ['C', 'H', 'D', 'T'];
+
+/**
+ * The symbols in Hill order (see `hillFormula`): with carbon, C, H, D, T first, the rest
+ * alphabetical; without, all alphabetical. Symbols are ASCII letters, so the default sort (by
+ * code unit) puts "C" before "Ca" before "Cl", as Hill order requires.
+ */
+function hillOrder(symbols: string[], carbon: boolean): string[] {
+  symbols.sort();
+  if (!carbon) return symbols;
+  const ordered: string[] = [];
+  for (const s of CARBON_FIRST) if (symbols.includes(s)) ordered.push(s);
+  for (const s of symbols) if (!CARBON_FIRST.includes(s)) ordered.push(s);
+  return ordered;
+}
+
+/** Atoms per formula unit of a formula structure (groups and hydrate parts multiplied out), exact. */
+export function compositionOf(parts: readonly FormulaPart[]): Composition {
+  return compositionAndHill(parts).composition;
 }
 
 /**
- * Atoms per formula unit of a formula structure (groups and hydrate parts multiplied out), exact.
- * Whole-number parts are summed as plain numbers (every count has at most 9 digits and nesting is
- * bounded, but the sum is checked and redone exactly if it ever leaves the safe range).
+ * The composition and the Hill formula of a formula structure in one pass. Whole-number parts are
+ * summed as plain numbers (every count has at most 9 digits and nesting is bounded, but each sum
+ * is checked, and the exact path runs instead if one ever leaves the safe range).
  */
-export function compositionOf(parts: readonly FormulaPart[]): Composition {
-  if (parts.every((p) => p.multiplier.d === 1n && p.multiplier.n <= 1_000_000_000n)) {
-    const counts: Record<string, number> = {};
+export function compositionAndHill(parts: readonly FormulaPart[]): { composition: Composition; hill: string } {
+  let whole = true;
+  for (const p of parts) if (p.multiplier.d !== 1n || p.multiplier.n > 1_000_000_000n) whole = false;
+  if (whole) {
+    const counts = new Map<string, number>();
     let safe = true;
     for (const part of parts) safe = addWhole(counts, part.items, Number(part.multiplier.n)) && safe;
     if (safe) {
-      const out: Record<string, Rat> = {};
-      for (const symbol in counts) out[symbol] = ratOfInteger(counts[symbol]!);
-      return out;
+      const composition: Record<string, Rat> = {};
+      for (const [symbol, count] of counts) composition[symbol] = ratOfInteger(count);
+      return { composition, hill: hillFormulaOfCounts(counts) };
     }
   }
   const exact: Record<string, { n: bigint; d: bigint }> = {};
   for (const part of parts) addExact(exact, part.items, part.multiplier.n, part.multiplier.d);
-  const out: Record<string, Rat> = {};
-  for (const symbol in exact) out[symbol] = rat(exact[symbol]!.n, exact[symbol]!.d);
-  return out;
+  const composition: Record<string, Rat> = {};
+  for (const symbol in exact) composition[symbol] = rat(exact[symbol]!.n, exact[symbol]!.d);
+  return { composition, hill: hillFormula(composition) };
 }
 
-function addWhole(out: Record<string, number>, items: readonly FormulaItem[], factor: number): boolean {
+function addWhole(out: Map<string, number>, items: readonly FormulaItem[], factor: number): boolean {
   let safe = Number.isSafeInteger(factor);
   for (const item of items) {
     if (item.kind === 'element') {
-      const total = (out[item.symbol] ?? 0) + item.count * factor;
-      out[item.symbol] = total;
+      const total = (out.get(item.symbol) ?? 0) + item.count * factor;
+      out.set(item.symbol, total);
       if (!Number.isSafeInteger(total)) safe = false;
     } else {
       safe = addWhole(out, item.items, factor * item.count) && safe;

@@ -12,7 +12,7 @@ import {
 } from './limits';
 import { parseMessages, warningMessages } from './messages';
 import { isPeggyError, parseErrorAt, rewritePeggyError } from './parse-errors';
-import { parseRational, type Rat } from './rational';
+import { ONE, parseRational, type Rat } from './rational';
 import { buildSpecies } from './species';
 import type { EnthalpyValue, HeatTerm, ParsedEquation, ParsedSpecies, ParseWarning, Side, SpeciesTerm } from './types';
 
@@ -84,56 +84,58 @@ function speciesKey(species: ParsedSpecies): string {
   return `${species.formula}|${species.phase ?? ''}|${species.descriptor ?? ''}`;
 }
 
+/** Reads one side's terms into `terms` and `heat`. */
+function readSide(
+  text: string,
+  side: Side,
+  list: ReadonlyArray<AstTerm | null>,
+  missingAt: number,
+  out: { terms: SpeciesTerm[]; heat: HeatTerm[]; warnings: ParseWarning[] },
+): void {
+  let species = 0;
+  for (const t of list) {
+    if (t === null) continue; // not kept: only possible past maxTerms, refused before this runs
+    // The grammar refuses line breaks, so a parsed equation is one line: column = offset + 1.
+    if (t.kind === 'heat') {
+      if (!isEnergyUnit(t.unit)) throw parseErrorAt(text, t.start, parseMessages.unknownEnergyUnit(t.unit));
+      const value = Number(t.value);
+      const kj = toKilojoules(value, t.unit);
+      if (!Number.isFinite(kj)) throw parseErrorAt(text, t.start, parseMessages.heatTermNotFinite(), t.end - t.start);
+      out.heat.push({
+        side,
+        value: kj,
+        stated: { value, unit: t.unit },
+        span: { start: t.start, end: t.end, column: t.start + 1 },
+      });
+      continue;
+    }
+    species++;
+    let coefficient: Rat | null = null;
+    if (t.coefficient !== null) {
+      coefficient = parseRational(t.coefficient);
+      const length = t.coefficient.length;
+      if (coefficient === null)
+        throw parseErrorAt(text, t.start, parseMessages.coefficientUnreadable(t.coefficient), length);
+      if (coefficient.n === 0n) throw parseErrorAt(text, t.start, parseMessages.coefficientZero(), length);
+    }
+    const sp = buildSpecies(t.species, text, t.species.start + 1, out.warnings, out.terms.length);
+    if (sp.electron && sp.charge !== -1) {
+      throw parseErrorAt(text, t.species.start, parseMessages.electronCharge(), t.species.end - t.species.start);
+    }
+    out.terms.push({ species: sp, side, coefficient: coefficient ?? ONE, coefficientWritten: coefficient !== null });
+  }
+  if (species === 0) throw parseErrorAt(text, missingAt, parseMessages.sideNeedsSpecies(side));
+}
+
 function readTerms(
   text: string,
   ast: AstEquation,
   warnings: ParseWarning[],
 ): { terms: SpeciesTerm[]; heat: HeatTerm[] } {
-  const terms: SpeciesTerm[] = [];
-  const heat: HeatTerm[] = [];
-  const readSide = (side: Side, list: ReadonlyArray<AstTerm | null>, missingAt: number): void => {
-    let species = 0;
-    for (const t of list) {
-      if (t === null) continue; // not kept: only possible past maxTerms, refused before this runs
-      // The grammar refuses line breaks, so a parsed equation is one line: column = offset + 1.
-      if (t.kind === 'heat') {
-        if (!isEnergyUnit(t.unit)) throw parseErrorAt(text, t.start, parseMessages.unknownEnergyUnit(t.unit));
-        const value = Number(t.value);
-        const kj = toKilojoules(value, t.unit);
-        if (!Number.isFinite(kj)) throw parseErrorAt(text, t.start, parseMessages.heatTermNotFinite(), t.end - t.start);
-        heat.push({
-          side,
-          value: kj,
-          stated: { value, unit: t.unit },
-          span: { start: t.start, end: t.end, column: t.start + 1 },
-        });
-        continue;
-      }
-      species++;
-      let coefficient: Rat | null = null;
-      if (t.coefficient !== null) {
-        coefficient = parseRational(t.coefficient);
-        const length = t.coefficient.length;
-        if (coefficient === null)
-          throw parseErrorAt(text, t.start, parseMessages.coefficientUnreadable(t.coefficient), length);
-        if (coefficient.n === 0n) throw parseErrorAt(text, t.start, parseMessages.coefficientZero(), length);
-      }
-      const sp = buildSpecies(t.species, text, t.species.start + 1, warnings, terms.length);
-      if (sp.electron && sp.charge !== -1) {
-        throw parseErrorAt(text, t.species.start, parseMessages.electronCharge(), t.species.end - t.species.start);
-      }
-      terms.push({
-        species: sp,
-        side,
-        coefficient: coefficient ?? { n: 1n, d: 1n },
-        coefficientWritten: coefficient !== null,
-      });
-    }
-    if (species === 0) throw parseErrorAt(text, missingAt, parseMessages.sideNeedsSpecies(side));
-  };
-  readSide('reactant', ast.left, 0);
-  readSide('product', ast.right, ast.arrow.end);
-  return { terms, heat };
+  const out = { terms: [] as SpeciesTerm[], heat: [] as HeatTerm[], warnings };
+  readSide(text, 'reactant', ast.left, 0, out);
+  readSide(text, 'product', ast.right, ast.arrow.end, out);
+  return { terms: out.terms, heat: out.heat };
 }
 
 /**

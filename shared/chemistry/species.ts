@@ -1,6 +1,6 @@
 import type { AstCharge, AstItem, AstPart, AstSpecies } from './grammar-ast';
 import { elementName, isMetal } from './elements';
-import { compositionOf, hillFormula } from './hill';
+import { compositionAndHill } from './hill';
 import { warningMessages } from './messages';
 import { ONE, rat, ratText, type Rat } from './rational';
 import type { ChargeNotation, FormulaItem, FormulaPart, ParsedSpecies, ParseWarning, Phase, SourceSpan } from './types';
@@ -125,12 +125,12 @@ export function buildSpecies(
     }
   }
 
-  const composition = compositionOf(parts);
+  const { composition, hill } = compositionAndHill(parts);
   return {
     formula: partsText(parts) + chargeText(charge),
     composition,
     charge,
-    hill: hillFormula(composition),
+    hill,
     phase,
     descriptor,
     electron: false,
