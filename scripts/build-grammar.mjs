@@ -25,13 +25,27 @@ const template = await readFile(templatePath, 'utf8');
  * 130 closures (one per rule and per action) before reading a character, which dominates the cost
  * of parsing one short equation. This moves everything to module scope instead:
  * - the constant tables (`peg$c…`, `peg$r…`, `peg$e…`, `peg$FAILED`, the start-rule table) become
- *   module constants, built once;
+ *   module constants, built once; character classes test ASCII with a table (see CHAR_CLASS);
  * - the functions (rules, actions, helpers) become module functions;
  * - the per-parse variables (positions, the input, the options, the grammar's per-parse
  *   initializer) become module variables that `peg$parse` assigns at the start of every call and
  *   clears at the end.
  * Parsing stays synchronous and nothing it calls parses again, so one set of state is enough.
  */
+// Peggy tests a character class with a regular expression on every character it tries. The
+// class constants become this: a table for ASCII, built once, and the expression beyond it.
+const CHAR_CLASS = `
+function peg$charClass(re) {
+  const ascii = new Uint8Array(128);
+  for (let c = 0; c < 128; c++) ascii[c] = re.test(String.fromCharCode(c)) ? 1 : 0;
+  return {
+    test(ch) {
+      const c = ch.charCodeAt(0);
+      return c < 128 ? ascii[c] === 1 : re.test(ch);
+    },
+  };
+}`;
+
 function moveParserToModuleScope(code) {
   const ast = acorn.parse(code, { ecmaVersion: 'latest', sourceType: 'module' });
   const parse = ast.body.find((n) => n.type === 'FunctionDeclaration' && n.id.name === 'peg$parse');
@@ -68,7 +82,9 @@ function moveParserToModuleScope(code) {
         const name = d.id.name;
         claim(name);
         if (isConstant(stmt.kind, name)) {
-          moduleCode.push(`const ${name} = ${src(d.init)};`);
+          const regex = d.init.type === 'Literal' && d.init.regex;
+          const simpleClass = regex && /^\^\[.*\]$/.test(regex.pattern) && /^i?$/.test(regex.flags);
+          moduleCode.push(`const ${name} = ${simpleClass ? `peg$charClass(${src(d.init)})` : src(d.init)};`);
           constants++;
         } else {
           state.push(name);
@@ -84,6 +100,7 @@ function moveParserToModuleScope(code) {
   const cleared = ['peg$result', 'peg$maxFailExpected', 'peg$posDetailsCache'].filter((n) => state.includes(n));
   const parser = [
     '// Moved to module scope by build-grammar.mjs: constants built once, state reset by each call.',
+    CHAR_CLASS,
     `let ${state.join(', ')};`,
     ...moduleCode,
     `function peg$parse(${inputName}$, ${optionsName}$) {`,

@@ -1,4 +1,5 @@
 import Fraction from 'fraction.js';
+import { argumentMessages } from './messages';
 import { mul, parseRational, rat, ratToNumber, type Rat } from './rational';
 import type { EnthalpyValue, EquationModel, Side } from './types';
 
@@ -27,7 +28,7 @@ export function readFactor(factor: Fraction | Rat | string | number): Rat {
   else if (typeof factor === 'object') r = factor;
   else if (typeof factor === 'number') r = parseRational(new Fraction(factor).toFraction());
   else r = parseRational(factor);
-  if (r === null) throw new RangeError(`'${String(factor)}' is not an exact number such as 2, 1/2 or 0.5`);
+  if (r === null) throw new RangeError(argumentMessages.notExactFactor(String(factor)));
   return r;
 }
 
@@ -39,7 +40,7 @@ export function readFactor(factor: Fraction | Rat | string | number): Rat {
  */
 export function scaleEquation<T extends EquationModel>(eq: T, factor: Fraction | Rat | string | number): T {
   const f = readFactor(factor);
-  if (f.n === 0n) throw new RangeError('cannot scale an equation by zero');
+  if (f.n === 0n) throw new RangeError(argumentMessages.zeroFactor());
   if (f.n < 0n) return scaleEquation(reverseEquation(eq), { n: -f.n, d: f.d });
   const x = ratToNumber(f);
   const terms = eq.terms.map((t) => ({ ...t, coefficient: mul(t.coefficient, f) }));
@@ -52,7 +53,7 @@ export function scaleEquation<T extends EquationModel>(eq: T, factor: Fraction |
       stated: { ...eq.enthalpy.stated, value: eq.enthalpy.stated.value * x },
     };
     if (!Number.isFinite(enthalpy.value) || !Number.isFinite(enthalpy.uncertainty ?? 0)) {
-      throw new RangeError('scaling makes ΔH too large to represent');
+      throw new RangeError(argumentMessages.scaledEnthalpyNotFinite());
     }
   }
   return { ...eq, terms, enthalpy };

@@ -5,7 +5,7 @@
  * with a flag and a warning. The defaults serve real chemistry generously.
  */
 import { WorkLimitError } from './errors';
-import type { WorkLimitName } from './messages';
+import { argumentMessages, type WorkLimitName } from './messages';
 
 export type { WorkLimitName } from './messages';
 
@@ -48,8 +48,7 @@ export function resolveWorkLimits(overrides?: Partial<WorkLimits>): WorkLimits {
   for (const name of Object.keys(DEFAULT_WORK_LIMITS) as Array<keyof WorkLimits>) {
     const value = overrides[name];
     if (value === undefined) continue; // unset in the caller's configuration: keep the default
-    if (!Number.isSafeInteger(value) || value < 1)
-      throw new RangeError(`work limit ${name} must be a whole number ≥ 1`);
+    if (!Number.isSafeInteger(value) || value < 1) throw new RangeError(argumentMessages.badWorkLimit(name));
     limits[name] = value;
   }
   return limits;

@@ -109,6 +109,16 @@ export const requestMessages = {
     `${what} makes ΔH too large to represent (beyond ±1.8e308 kJ/mol); state ΔH for a smaller amount of reaction.`,
 } as const;
 
+// ----- Bad arguments to the equation arithmetic and molar masses (RangeError) ----------------
+
+export const argumentMessages = {
+  notExactFactor: (factor: string) => `'${factor}' is not an exact number such as 2, 1/2 or 0.5`,
+  zeroFactor: () => 'cannot scale an equation by zero',
+  scaledEnthalpyNotFinite: () => 'scaling makes ΔH too large to represent',
+  unknownSymbol: (symbol: string) => `unknown element symbol '${symbol}'`,
+  badWorkLimit: (name: string) => `work limit ${name} must be a whole number ≥ 1`,
+} as const;
+
 // ----- Why no balancing exists --------------------------------------------------------------
 
 /** Sign of the charges found on one side of an equation. */

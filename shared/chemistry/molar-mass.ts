@@ -1,4 +1,5 @@
 import { standardAtomicWeights } from './atomic-weights';
+import { argumentMessages } from './messages';
 import { ratToNumber } from './rational';
 import type { Composition } from './types';
 
@@ -32,7 +33,7 @@ export function molarMass(composition: Composition): MolarMass {
     if (exact.n === 0n) continue;
     const count = ratToNumber(exact);
     const w = standardAtomicWeights[symbol];
-    if (!w) throw new RangeError(`unknown element symbol '${symbol}'`);
+    if (!w) throw new RangeError(argumentMessages.unknownSymbol(symbol));
     value += count * w.value;
     variance += (count * w.uncertainty) ** 2;
     if (w.kind === 'mass-number') approximateElements.push(symbol);
