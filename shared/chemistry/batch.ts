@@ -32,6 +32,7 @@ export interface RefusedLine extends LineBase {
   error: ChemistryError;
 }
 
+/** One equation line of a batch and its outcome, in input order. */
 export type BatchLine = BalancedLine | RefusedLine;
 
 /** Whether a line holds an equation: not blank, and not a comment (first non-space character `#`). */

@@ -8,6 +8,7 @@ export interface AstSpan {
   end: number;
 }
 
+/** An element with its subscript, or a bracketed group of items with its multiplier. */
 export type AstItem =
   | { kind: 'element'; symbol: string; count: number; countText: string | null; start: number; end: number }
   | {
@@ -27,6 +28,7 @@ export interface AstPart {
   start: number;
 }
 
+/** A charge as typed, before the charge-reading rules of species.ts. */
 export interface AstCharge {
   /** Magnitude as typed (null = no digits, i.e. 1). */
   digits: string | null;
@@ -36,6 +38,7 @@ export interface AstCharge {
   end: number;
 }
 
+/** A phase label with its optional descriptor: `(cr, graphite)`. */
 export interface AstPhase {
   phase: string;
   descriptor: string | null;
@@ -43,6 +46,7 @@ export interface AstPhase {
   end: number;
 }
 
+/** A species as typed: hydrate/adduct parts, charge and phase (the electron has no parts). */
 export interface AstSpecies {
   electron: boolean;
   parts: AstPart[];
@@ -53,10 +57,12 @@ export interface AstSpecies {
   end: number;
 }
 
+/** A term of an equation: a species with its coefficient as typed, or a heat term. */
 export type AstTerm =
   | { kind: 'species'; coefficient: string | null; species: AstSpecies; start: number; end: number }
   | { kind: 'heat'; value: string; unit: string; start: number; end: number };
 
+/** The trailing ΔH as typed (numbers as text). */
 export interface AstEnthalpy {
   value: string;
   uncertainty: string | null;
@@ -66,6 +72,7 @@ export interface AstEnthalpy {
   end: number;
 }
 
+/** What the Equation start rule returns. */
 export interface AstEquation {
   /** Terms in order; null for terms past the parser's `maxTerms` option (counted, not kept). */
   left: Array<AstTerm | null>;
@@ -76,6 +83,7 @@ export interface AstEquation {
   termCount: number;
 }
 
+/** What the FormulaOnly start rule returns. */
 export interface AstFormulaOnly {
   species: AstSpecies;
 }

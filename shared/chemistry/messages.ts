@@ -94,6 +94,7 @@ export function termLabel(formula: string, phase: string | null, index: number):
   return `${formula}${phase ? `(${phase})` : ''} (term ${index})`;
 }
 
+/** Refused balance requests (texts of `BalanceInputError`). */
 export const requestMessages = {
   termIndexNotWhole: (key: string) => `Term index '${key}' is not a whole number from 0.`,
   noSuchTerm: (index: number, terms: number) => `There is no term ${index}: the equation has terms 0 to ${terms - 1}.`,
@@ -124,6 +125,7 @@ export const argumentMessages = {
 /** Sign of the charges found on one side of an equation. */
 export type ChargeSigns = 'none' | 'positive' | 'negative';
 
+/** Why an equation cannot be balanced with every coefficient positive. */
 export const impossibleMessages = {
   elementOnOneSide: (element: string, side: Side) =>
     `${elementLabel(element)} appears only among the ${side === 'reactant' ? 'reactants' : 'products'}, so it cannot balance.`,
@@ -161,6 +163,7 @@ export const warningMessages = {
 /** The bounded quantities; see `WorkLimits`. */
 export type WorkLimitName = 'terms' | 'species' | 'lines' | 'characters';
 
+/** The text of a `WorkLimitError`: the quantity, what was found and the limit, in words. */
 export function workLimitMessage(limit: WorkLimitName, max: number, found: number): string {
   switch (limit) {
     case 'terms':

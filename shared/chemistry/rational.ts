@@ -64,18 +64,28 @@ export function rat(n: bigint, d: bigint = 1n): Rat {
   return g > 1n ? rat(n / g, d / g) : { n, d };
 }
 
+/** 0 and 1 as rationals. */
 export const ZERO: Rat = SMALL_WHOLE[0]!;
+/** See `ZERO`. */
 export const ONE: Rat = SMALL_WHOLE[1]!;
 
+/** a + b, exact and normalised (the same for `sub`, `mul` and `div`; `div` throws RangeError for b = 0). */
 export const add = (a: Rat, b: Rat): Rat =>
   a.d === 1n && b.d === 1n ? rat(a.n + b.n) : rat(a.n * b.d + b.n * a.d, a.d * b.d);
+/** a − b. */
 export const sub = (a: Rat, b: Rat): Rat =>
   a.d === 1n && b.d === 1n ? rat(a.n - b.n) : rat(a.n * b.d - b.n * a.d, a.d * b.d);
+/** a × b. */
 export const mul = (a: Rat, b: Rat): Rat => (a.d === 1n && b.d === 1n ? rat(a.n * b.n) : rat(a.n * b.n, a.d * b.d));
+/** a ÷ b. */
 export const div = (a: Rat, b: Rat): Rat => rat(a.n * b.d, a.d * b.n);
+/** −a. */
 export const neg = (a: Rat): Rat => (a.n === 0n ? a : { n: -a.n, d: a.d });
+/** Whether a = b (normalised rationals compare by parts). */
 export const eq = (a: Rat, b: Rat): boolean => a.n === b.n && a.d === b.d;
+/** −1, 0 or 1. */
 export const sign = (a: Rat): number => (a.n > 0n ? 1 : a.n < 0n ? -1 : 0);
+/** Whether a is a whole number. */
 export const isWhole = (a: Rat): boolean => a.d === 1n;
 
 /** Exact text: "3", "-1/2". This is also the wire format of coefficients. */
