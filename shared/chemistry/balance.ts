@@ -168,6 +168,17 @@ function chargeSigns(terms: readonly SpeciesTerm[], side: 'reactant' | 'product'
   return charged === undefined ? 'none' : charged.species.charge > 0 ? 'positive' : 'negative';
 }
 
+/** Whether a row has positive and negative entries (numbers or BigInts). */
+function signsOf(row: ReadonlyArray<number> | ReadonlyArray<bigint>): { positive: boolean; negative: boolean } {
+  let positive = false;
+  let negative = false;
+  for (const v of row) {
+    if (v > 0) positive = true;
+    else if (v < 0) negative = true;
+  }
+  return { positive, negative };
+}
+
 type Verdict = { example: bigint[] } | { impossible: ImpossibleReason; basis: bigint[][] };
 
 /**
@@ -183,15 +194,14 @@ export function findPositiveBalancing(
   const k = kernel.basis.length;
   const elements: Array<{ element: string; side: 'reactant' | 'product' }> = [];
   let charge: { reactants: ChargeSigns; products: ChargeSigns } | null = null;
-  matrix.keys.forEach((key, r) => {
-    const row = matrix.rows[r]! as ReadonlyArray<number | bigint>;
-    const hasPositive = row.some((v) => v > 0);
-    const hasNegative = row.some((v) => v < 0);
-    if (hasPositive === hasNegative) return;
+  for (let r = 0; r < matrix.keys.length; r++) {
+    const { positive, negative } = signsOf(matrix.rows[r]!);
+    if (positive === negative) continue;
+    const key = matrix.keys[r]!;
     if (key === 'charge')
       charge = { reactants: chargeSigns(terms, 'reactant'), products: chargeSigns(terms, 'product') };
-    else elements.push({ element: key, side: hasPositive ? 'reactant' : 'product' });
-  });
+    else elements.push({ element: key, side: positive ? 'reactant' : 'product' });
+  }
   if (elements.length > 0 || charge !== null) {
     const sentences = elements.map((e) => impossibleMessages.elementOnOneSide(e.element, e.side));
     const c = charge as { reactants: ChargeSigns; products: ChargeSigns } | null;
@@ -204,7 +214,8 @@ export function findPositiveBalancing(
       basis: [],
     };
   }
-  const vanish = terms.map((_, j) => j).filter((j) => kernel.basis.every((b) => b[j] === 0n));
+  const vanish: number[] = [];
+  for (let j = 0; j < terms.length; j++) if (kernel.basis.every((b) => b[j] === 0n)) vanish.push(j);
   if (vanish.length > 0) {
     const message = impossibleMessages.mustVanish(vanish.map((j) => label(terms, j)));
     return { impossible: { kind: 'must_vanish', terms: vanish, message }, basis: kernel.basis };

@@ -63,4 +63,4 @@ export { hillFormula, compositionOf } from './hill';
 export { ELEMENT_SYMBOLS, isElementSymbol, atomicNumber, elementName } from './elements';
 export { standardAtomicWeights, ATOMIC_WEIGHTS_SOURCE } from './atomic-weights';
 export type { AtomicWeightEntry } from './atomic-weights';
-export { rat, ratText, parseRational, ratToNumber, ratOfInteger, ONE, ZERO } from './rational';
+export { rat, ratText, parseRational, ratToNumber, ratOfInteger, gcdBigInt, lcmBigInt, ONE, ZERO } from './rational';

@@ -5,6 +5,7 @@
  */
 import {
   elementTotals,
+  gcdBigInt,
   molarMass,
   parseRational,
   ratText,
@@ -109,13 +110,7 @@ export function givenRows(reply: BalanceResult): BalanceRow[] | null {
 /** True when the coefficients are whole numbers with no common factor (what "balanced" usually means). */
 export function smallestWholeNumbers(coefficients: readonly Rat[]): boolean {
   if (coefficients.some((c) => c.d !== 1n || c.n <= 0n)) return false;
-  let g = 0n;
-  for (const c of coefficients) {
-    let [a, b] = [g, c.n];
-    while (b !== 0n) [a, b] = [b, a % b];
-    g = a;
-  }
-  return g === 1n;
+  return coefficients.reduce((g, c) => gcdBigInt(g, c.n), 0n) === 1n;
 }
 
 export type StatusTone = 'success' | 'warning' | 'error';
