@@ -1,4 +1,4 @@
-import { balanceEquationText, parseEquationBatch } from '@shared/chemistry/index';
+import { balanceBatchRequest, balanceRequest } from '@shared/chemistry/index';
 import { balanceInputSchema, balanceResultSchema } from '@shared/schemas/balance';
 import { balanceBatchInputSchema, balanceBatchResultSchema } from '@shared/schemas/balance-batch';
 import { defineRoute } from './registry';
@@ -15,7 +15,7 @@ export const balanceRoutes = [
     rateLimit: 'calc',
     request: { body: balanceInputSchema },
     responses: { 200: balanceResultSchema },
-    handler: ({ body }) => balanceEquationText(body),
+    handler: ({ body }) => balanceRequest(body),
   }),
   defineRoute({
     method: 'post',
@@ -27,6 +27,6 @@ export const balanceRoutes = [
     rateLimit: 'calc',
     request: { body: balanceBatchInputSchema },
     responses: { 200: balanceBatchResultSchema },
-    handler: ({ body }) => ({ results: parseEquationBatch(body.text) }),
+    handler: ({ body }) => balanceBatchRequest(body),
   }),
 ];
