@@ -50,7 +50,7 @@ describe('POST /api/v1/session', () => {
   it('marks the cookie Secure when the request came over HTTPS through a trusted proxy', async () => {
     const { startTestApp: start } = await import('./helpers');
     // Reuse this file's database; only the proxy setting differs.
-    const proxied = await start({ open: { ...t.open, close: async () => {} }, config: { trustProxy: true } });
+    const proxied = await start({ open: { ...t.open, close: async () => {} }, config: { trustProxy: 1 } });
     try {
       const res = await proxied
         .anon()
