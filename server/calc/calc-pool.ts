@@ -19,6 +19,7 @@ function isErrorCode(code: string): code is ErrorCode {
  */
 export class CalcPool {
   private readonly pool: Piscina<CalcTask, CalcOutcome>;
+  private running = 0;
 
   constructor(
     private readonly settings: CalcSettings,
@@ -39,10 +40,13 @@ export class CalcPool {
   async run(task: TaskWithoutLimits): Promise<string> {
     const { timeBudgetMs, workerHeapMb, limits } = this.settings;
     let outcome: CalcOutcome;
+    this.running++;
     try {
       outcome = await this.pool.run({ ...task, limits } as CalcTask, { signal: AbortSignal.timeout(timeBudgetMs) });
     } catch (err) {
       throw this.translate(err, timeBudgetMs, workerHeapMb);
+    } finally {
+      this.running--;
     }
     if (outcome.ok) return outcome.json;
     const { code, message, details } = outcome.error;
@@ -78,6 +82,11 @@ export class CalcPool {
       );
     }
     return err;
+  }
+
+  /** Calculations submitted and not yet answered (queued or running). */
+  get inFlight(): number {
+    return this.running;
   }
 
   /** Starts one worker and loads the core, so the first request does not pay for it. */

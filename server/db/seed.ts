@@ -82,9 +82,10 @@ export async function demoAccountsWithPublishedPassword(db: Db, seed: DemoSeed =
         seed.users.map((u) => u.email),
       ),
     );
-  const open: string[] = [];
-  for (const row of rows) {
-    if (!row.disabled && (await verifyPassword(row.passwordHash, PUBLISHED_DEMO_PASSWORD))) open.push(row.email);
-  }
-  return open.sort();
+  const checked = await Promise.all(
+    rows
+      .filter((row) => !row.disabled)
+      .map(async (row) => ((await verifyPassword(row.passwordHash, PUBLISHED_DEMO_PASSWORD)) ? row.email : null)),
+  );
+  return checked.filter((email): email is string => email !== null).sort();
 }
