@@ -87,11 +87,11 @@ describe('control characters in text fields', () => {
 describe('compressed request bodies', () => {
   const valid = JSON.stringify({ equation: 'H2 + O2 -> H2O' });
   // fetch sends the bytes exactly as given (supertest would re-encode a Buffer body).
-  const post = async (encoding: string, body: Uint8Array | string) => {
+  const post = async (encoding: string, body: Buffer | string) => {
     const res = await fetch(`${t.url}/api/v1/balance`, {
       method: 'POST',
       headers: { 'Content-Type': 'application/json', 'Content-Encoding': encoding },
-      body,
+      body: typeof body === 'string' ? body : new Blob([new Uint8Array(body)]),
     });
     return { status: res.status, body: (await res.json()) as { error?: { code: string; message: string } } };
   };
