@@ -96,6 +96,25 @@ describe('work limits of POST /api/v1/balance/batch', () => {
   });
 });
 
+describe('the distinct-species limit', () => {
+  it('counts species, not terms: a species written twice counts once', async () => {
+    const narrow = await startTestApp({
+      open: { ...t.open, close: async () => {} },
+      config: { calc: { limits: { maxDistinctSpecies: 5 } } },
+    });
+    try {
+      const post = (equation: string) => request(narrow.url).post('/api/v1/balance').send({ equation });
+      // 6 terms, 5 species (H2O on both sides).
+      expect((await post('CH4 + O2 + H2O -> CO2 + H2O + H2')).status).toBe(200);
+      const six = await post('CH4 + O2 + N2 -> CO2 + H2O + NO2');
+      expect(six.status).toBe(413);
+      expect(six.body.error.details).toMatchObject({ limit: expect.stringMatching(/species/i), max: 5, found: 6 });
+    } finally {
+      await narrow.close();
+    }
+  });
+});
+
 describe('a calculation reply over the size limit', () => {
   it('is refused with 413 naming the reply limit', async () => {
     const small = await startTestApp({
