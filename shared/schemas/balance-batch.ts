@@ -3,7 +3,8 @@ import { balanceResultSchema, parseErrorDetailsSchema, workLimitDetailsSchema } 
 
 /** POST /api/v1/balance/batch request: one equation per line; blank lines and "#" comments are skipped. */
 export const balanceBatchInputSchema = z.object({
-  text: z.string().min(1, 'Type at least one equation.').max(200_000),
+  // The configured batch limits (CALC_MAX_BATCH_BYTES, CALC_MAX_BATCH_LINES) apply first, with 413.
+  text: z.string().min(1, 'Type at least one equation.').max(2_000_000),
 });
 export type BalanceBatchInput = z.infer<typeof balanceBatchInputSchema>;
 
