@@ -4,7 +4,8 @@
  *   1. builds the client, unless dist/ is newer than every client source (`--build` forces it);
  *   2. makes a throwaway data directory and seeds the demo teams and users into it with
  *      `tsx server/db/seed-cli.ts --demo`, under a random password (DEMO_PASSWORD);
- *   3. starts the real server on free ports with NODE_ENV=production and waits until it answers;
+ *   3. starts the real server on free ports with NODE_ENV=production, waits until it answers and
+ *      checks that a seeded account signs in with that password;
  *   4. runs the E2E suite against it, handing over the URL and the password (E2E_BASE_URL,
  *      E2E_PASSWORD); every other argument goes to vitest (e.g. `--sequence.shuffle`, a file name);
  *   5. always stops the server and deletes the data directory.
@@ -97,6 +98,24 @@ async function waitForHealth(url, server, timeoutMs = 90_000) {
   throw new Error(`the server did not answer ${url} within ${timeoutMs / 1000} s`);
 }
 
+/**
+ * Fails fast, in one clear sentence, when the seeded accounts do not take the password the tests
+ * will use (a seed command that ignores DEMO_PASSWORD), instead of every test failing to sign in.
+ */
+async function checkDemoSignIn(baseUrl, password) {
+  const reply = await fetch(`${baseUrl}/api/v1/session`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: baseUrl },
+    body: JSON.stringify({ email: 'vera.viewer@kestrel.example', password }),
+  });
+  if (!reply.ok) {
+    throw new Error(
+      `the seeded demo viewer cannot sign in with the DEMO_PASSWORD given to the seed (HTTP ${reply.status}): ` +
+        'does `tsx server/db/seed-cli.ts --demo` seed the demo users with DEMO_PASSWORD?',
+    );
+  }
+}
+
 const bin = (name) => path.join(root, 'node_modules', '.bin', name);
 let server = null;
 let dataDir = null;
@@ -173,6 +192,7 @@ try {
     throw error;
   }
   console.log(`E2E: server up at ${baseUrl} (data in ${dataDir})`);
+  await checkDemoSignIn(baseUrl, password);
 
   exitCode = await run(bin('vitest'), ['run', '--config', 'tests/e2e/vitest.config.ts', ...vitestArgs], {
     ...process.env,
