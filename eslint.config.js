@@ -140,7 +140,8 @@ export default tseslint.config(
       ],
     },
   },
-  // Only src/api/http.ts talks to the network.
+  // Only src/api/http.ts talks to the network; browser storage goes through @vueuse/core, which
+  // survives storage being unavailable (private mode) and keeps tabs in step.
   {
     files: ['src/**/*.ts', 'src/**/*.vue'],
     ignores: ['src/api/**'],
@@ -148,11 +149,36 @@ export default tseslint.config(
       'no-restricted-globals': [
         'error',
         { name: 'fetch', message: 'Call the server through src/api (http.ts is the only fetch caller).' },
+        ...['localStorage', 'sessionStorage'].map((name) => ({
+          name,
+          message: `Use useLocalStorage / useSessionStorage from @vueuse/core instead of ${name}.`,
+        })),
       ],
       'no-restricted-properties': [
         'error',
         { object: 'window', property: 'fetch', message: 'Call the server through src/api.' },
         { object: 'globalThis', property: 'fetch', message: 'Call the server through src/api.' },
+        ...['window', 'globalThis'].flatMap((object) =>
+          ['localStorage', 'sessionStorage'].map((property) => ({
+            object,
+            property,
+            message: 'Use useLocalStorage / useSessionStorage from @vueuse/core.',
+          })),
+        ),
+      ],
+    },
+  },
+  // naive-ui's NCard title (and header slot) renders role="heading" without aria-level: axe fails it.
+  {
+    files: ['src/**/*.vue'],
+    rules: {
+      'vue/no-restricted-static-attribute': [
+        'error',
+        { key: 'title', element: 'NCard', message: 'Use SectionCard: NCard titles are headings without a level.' },
+      ],
+      'vue/no-restricted-v-bind': [
+        'error',
+        { argument: 'title', element: 'NCard', message: 'Use SectionCard: NCard titles are headings without a level.' },
       ],
     },
   },

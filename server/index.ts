@@ -1,24 +1,36 @@
-// Starts Thermoledger: environment → database (locked, migrated, seeded) → mail → HTTP.
+// Starts Thermoledger: environment → database (locked, migrated, demo policy) → mail → HTTP.
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { configFromEnv, EnvError, readEnv } from './env';
+import { applyDemoPolicy, DemoAccountsInProductionError, type DemoOutcome } from './db/demo-policy';
+import { DataDirLockedError } from './db/lock';
 import { runMigrations } from './db/migrate';
 import { openConfiguredDatabase } from './db/open';
-import { DEMO_PASSWORD, loadDemoSeed, seedDemo } from './db/seed';
-import { DataDirLockedError } from './db/lock';
+import { createLogger } from './lib/logger';
 import { seedLibrary } from './library/seed-library';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
+import { PUBLISHED_DEMO_PASSWORD } from '../seeds/demo/demo-seed';
+
+function demoLines(demo: DemoOutcome): string[] {
+  if (!demo.seeded) return [`Demo accounts: not seeded (${demo.reason}).`];
+  const password =
+    demo.password === 'published' ? `password "${PUBLISHED_DEMO_PASSWORD}"` : 'password from DEMO_PASSWORD';
+  return [
+    `Demo accounts: seeded (${demo.reason}); sign in with ${password}:`,
+    ...demo.accounts.map((a) => `  ${a.email.padEnd(34)} ${a.roles}`),
+  ];
+}
 
 async function main(): Promise<void> {
   const env = readEnv();
   const config = configFromEnv(env);
+  const log = createLogger(config);
   const { open, release } = await openConfiguredDatabase(env);
   await runMigrations(open);
   // The library's own seed is not demo data: it runs on every installation with an empty library.
   const seededRevision = await seedLibrary(open.db);
-  const seed = loadDemoSeed();
-  await seedDemo(open.db, seed);
+  const demo = await applyDemoPolicy(open.db, env);
 
   let fakeSmtp: FakeSmtp | null = null;
   if (!env.SMTP_HOST) fakeSmtp = await startFakeSmtp({ port: env.SMTP_PORT });
@@ -36,26 +48,27 @@ async function main(): Promise<void> {
         null,
       );
 
-  const app = createApp({ db: open.db, mailer, config });
-  const server = app.listen(env.PORT);
+  const app = createApp({ db: open.db, mailer, config, logger: log });
+  // Load the chemistry core into one worker now, so the first calculation does not wait for it.
+  await app.locals.deps.calc.warmUp();
+  const server = app.listen(env.PORT, env.HOST);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
     server.once('error', reject);
   });
   const port = (server.address() as AddressInfo).port;
-  console.log(`Thermoledger is listening on http://localhost:${port} (public URL ${config.publicUrl})`);
-  console.log(`Database: ${open.kind === 'pglite' ? `PGlite in ${env.DATA_DIR}` : 'PostgreSQL server (DATABASE_URL)'}`);
+  const shownHost = env.HOST.includes(':') ? `[${env.HOST}]` : env.HOST;
+  console.log(`Thermoledger is listening on http://${shownHost}:${port} (public URL ${config.publicUrl})`);
+  console.log(
+    `Database: ${open.kind === 'pglite' ? `PGlite in ${env.DATA_DIR}` : 'PostgreSQL server (DATABASE_URL)'}; NODE_ENV=${env.NODE_ENV}`,
+  );
   if (seededRevision !== null) console.log(`Library: seeded as revision ${seededRevision} from seeds/library`);
   console.log(
     fakeSmtp
       ? `Mail: development SMTP server on ${fakeSmtp.host}:${fakeSmtp.port}; read it at /api/v1/admin/outbox as a site admin`
       : `Mail: SMTP ${env.SMTP_HOST}:${env.SMTP_PORT}`,
   );
-  console.log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);
-  for (const user of seed.users) {
-    const roles = [...user.teams.map((t) => `${t.role} of ${t.slug}`), ...user.siteRoles.map((r) => `site role ${r}`)];
-    console.log(`  ${user.email.padEnd(34)} ${roles.join(', ')}`);
-  }
+  for (const line of demoLines(demo)) console.log(line);
 
   let stopping = false;
   const stop = async (signal: string) => {
@@ -64,6 +77,7 @@ async function main(): Promise<void> {
     console.log(`${signal}: shutting down`);
     server.close();
     server.closeAllConnections();
+    await app.locals.close();
     await fakeSmtp?.close();
     await open.close();
     release();
@@ -74,7 +88,8 @@ async function main(): Promise<void> {
 }
 
 main().catch((err: unknown) => {
-  if (err instanceof EnvError || err instanceof DataDirLockedError) console.error(err.message);
+  if (err instanceof EnvError || err instanceof DataDirLockedError || err instanceof DemoAccountsInProductionError)
+    console.error(err.message);
   else console.error('Thermoledger could not start:', err);
   process.exit(1);
 });

@@ -6,7 +6,7 @@
  * Source: McBride, Gordon & Reno, NASA TM-4513 (1993), copied in seeds/source-data/nasa-tm4513/.
  */
 import { z } from 'zod';
-import { parseFormula } from '../../shared/chemistry/index';
+import { parseFormula, ratToNumber } from '../../shared/chemistry/index';
 import type { NasaExclusion, NasaLabelRow, NasaPhase } from './nasa-labels';
 import {
   coversReferenceTemperature,
@@ -200,7 +200,9 @@ function checkRow(row: NasaLabelRow, entry: NasaSourceEntry): string[] {
     if (el !== 'E') sourceAtoms[el] = n;
   }
   const sourceCharge = -(entry.composition.E ?? 0);
-  const ours = compositionText(parsed.composition);
+  const ours = compositionText(
+    Object.fromEntries(Object.entries(parsed.composition).map(([el, n]) => [el, ratToNumber(n)])),
+  );
   const theirs = compositionText(sourceAtoms);
   if (ours !== theirs)
     problems.push(`${where}: '${key}' has composition ${ours || '(none)'}, the source ${theirs || '(none)'}`);

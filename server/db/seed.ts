@@ -1,62 +1,27 @@
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { and, eq } from 'drizzle-orm';
-import { z } from 'zod';
-import { siteRoleSchema, teamRoleSchema } from '@shared/schemas/roles';
-import { hashPassword } from '../lib/secrets';
+import { and, eq, inArray } from 'drizzle-orm';
+import { loadDemoSeed, PUBLISHED_DEMO_PASSWORD, type DemoSeed } from '../../seeds/demo/demo-seed';
+import { hashPassword, verifyPassword } from '../lib/secrets';
 import type { Db } from './client';
 import { memberships, notes, teams, users } from './tables/index';
 
-/** Every demo account signs in with this password (printed at start-up). */
-export const DEMO_PASSWORD = 'thermoledger-demo';
-
-const seedDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../seeds/demo');
-
-const demoTeamsSchema = z.array(z.object({ slug: z.string(), name: z.string(), about: z.string().optional() }));
-const demoUsersSchema = z.array(
-  z.object({
-    email: z.email(),
-    displayName: z.string(),
-    siteRoles: z.array(siteRoleSchema),
-    teams: z.array(z.object({ slug: z.string(), role: teamRoleSchema })),
-  }),
-);
-const demoNotesSchema = z.array(z.object({ team: z.string(), author: z.email(), title: z.string(), body: z.string() }));
-
-export interface DemoSeed {
-  teams: z.infer<typeof demoTeamsSchema>;
-  users: z.infer<typeof demoUsersSchema>;
-  notes: z.infer<typeof demoNotesSchema>;
-}
-
-function readJson<T>(file: string, schema: z.ZodType<T>): T {
-  const full = path.join(seedDir, file);
-  const parsed = schema.safeParse(JSON.parse(readFileSync(full, 'utf8')));
-  if (!parsed.success) throw new Error(`Seed file ${full} is not valid: ${parsed.error.message}`);
-  return parsed.data;
-}
-
-/** Reads and checks seeds/demo/*.json. */
-export function loadDemoSeed(): DemoSeed {
-  return {
-    teams: readJson('teams.json', demoTeamsSchema),
-    users: readJson('users.json', demoUsersSchema),
-    notes: readJson('notes.json', demoNotesSchema),
-  };
-}
-
-// argon2 is slow on purpose; tests reseed often, so one hash of the demo password is reused per process.
-let demoHash: Promise<string> | undefined;
+// argon2 is slow on purpose; tests reseed often, so one hash per password is reused per process.
+const hashes = new Map<string, Promise<string>>();
 
 /**
  * Loads the demo scenario idempotently: users by e-mail and teams by slug are inserted when
- * missing and otherwise left alone, so re-running it changes nothing (not even edited names).
+ * missing and otherwise left alone, so re-running it changes nothing (not even edited names or
+ * passwords). New demo accounts get `password` (default: the published demo password).
  */
-export async function seedDemo(db: Db, seed: DemoSeed = loadDemoSeed()): Promise<void> {
+export async function seedDemo(
+  db: Db,
+  options: { password?: string; seed?: DemoSeed } = {},
+): Promise<{ created: number }> {
+  const seed = options.seed ?? loadDemoSeed();
+  const password = options.password ?? PUBLISHED_DEMO_PASSWORD;
   const existing = new Set((await db.select({ email: users.email }).from(users)).map((u) => u.email));
-  const needsHash = seed.users.some((u) => !existing.has(u.email));
-  const passwordHash = needsHash ? await (demoHash ??= hashPassword(DEMO_PASSWORD)) : '';
+  const missing = seed.users.filter((u) => !existing.has(u.email));
+  if (missing.length > 0 && !hashes.has(password)) hashes.set(password, hashPassword(password));
+  const passwordHash = missing.length > 0 ? await hashes.get(password)! : '';
 
   await db.transaction(async (tx) => {
     for (const team of seed.teams) {
@@ -65,7 +30,7 @@ export async function seedDemo(db: Db, seed: DemoSeed = loadDemoSeed()): Promise
     const teamIds = new Map(
       (await tx.select({ id: teams.id, slug: teams.slug }).from(teams)).map((t) => [t.slug, t.id]),
     );
-    for (const user of seed.users) {
+    for (const user of missing) {
       await tx
         .insert(users)
         .values({ email: user.email, displayName: user.displayName, passwordHash, siteRoles: user.siteRoles })
@@ -103,4 +68,24 @@ export async function seedDemo(db: Db, seed: DemoSeed = loadDemoSeed()): Promise
       });
     }
   });
+  return { created: missing.length };
+}
+
+/** E-mails of enabled demo accounts that still sign in with the published demo password. */
+export async function demoAccountsWithPublishedPassword(db: Db, seed: DemoSeed = loadDemoSeed()): Promise<string[]> {
+  const rows = await db
+    .select({ email: users.email, passwordHash: users.passwordHash, disabled: users.disabled })
+    .from(users)
+    .where(
+      inArray(
+        users.email,
+        seed.users.map((u) => u.email),
+      ),
+    );
+  const checked = await Promise.all(
+    rows
+      .filter((row) => !row.disabled)
+      .map(async (row) => ((await verifyPassword(row.passwordHash, PUBLISHED_DEMO_PASSWORD)) ? row.email : null)),
+  );
+  return checked.filter((email): email is string => email !== null).sort();
 }

@@ -1,5 +1,12 @@
 import Fraction from 'fraction.js';
-import { balanceParsedEquation, ChemistryError, parseEquation } from '@shared/chemistry/index';
+import {
+  balanceEquation,
+  ChemistryError,
+  formatEquation,
+  parseEquation,
+  ratText,
+  type Rat,
+} from '@shared/chemistry/index';
 
 /**
  * An equation read and balanced for evaluation against the library: each term with its species
@@ -20,10 +27,15 @@ export interface ReactionTerm {
 }
 
 export interface ReadReaction {
-  /** The balanced equation as text. */
+  /** The balanced equation as text (without any ΔH written with it). */
   equation: string;
   terms: ReactionTerm[];
   warnings: { code: string; message: string; term?: number }[];
+}
+
+/** The core's exact rational as a fraction.js Fraction (the combiner and thermo core's number type). */
+export function fractionOf(r: Rat): Fraction {
+  return new Fraction(ratText(r));
 }
 
 /**
@@ -34,28 +46,31 @@ export interface ReadReaction {
  */
 export function readBalancedReaction(text: string): ReadReaction {
   const parsed = parseEquation(text);
-  const result = balanceParsedEquation(parsed);
-  if (result.status === 'impossible') {
-    throw new ChemistryError('unprocessable', `This equation cannot be balanced: ${result.reason ?? ''}`.trim(), {
-      status: result.status,
-    });
-  }
-  if (result.status === 'multiple') {
+  const balancing = balanceEquation(parsed, {});
+  if (balancing.status === 'impossible') {
     throw new ChemistryError(
       'unprocessable',
-      `These species balance in ${result.dimension ?? 'several'} independent ways, so the reaction is not defined: write the coefficients (e.g. "${result.equation}").`,
-      { status: result.status, dimension: result.dimension },
+      `This equation cannot be balanced: ${balancing.impossible?.message ?? 'no balancing exists'}`,
+      { status: balancing.status },
     );
   }
-  const warnings: ReadReaction['warnings'] = result.warnings.map((w) => ({
+  const equation = formatEquation({ ...balancing.equation, enthalpy: null }, 'text');
+  if (balancing.status === 'multiple') {
+    throw new ChemistryError(
+      'unprocessable',
+      `These species balance in ${balancing.dimension} independent ways, so the reaction is not defined: write the coefficients (e.g. "${equation}").`,
+      { status: balancing.status, dimension: balancing.dimension },
+    );
+  }
+  const warnings: ReadReaction['warnings'] = [...parsed.warnings, ...balancing.warnings].map((w) => ({
     code: w.code,
     message: w.message,
     ...(w.term !== undefined ? { term: w.term } : {}),
   }));
-  if (!result.asGiven) {
+  if (!balancing.asGiven) {
     warnings.push({
       code: 'balanced_first',
-      message: `The equation as typed does not balance; it was balanced first: ${result.equation}.`,
+      message: `The equation as typed does not balance; it was balanced first: ${equation}.`,
     });
   }
   if (parsed.enthalpy) {
@@ -65,8 +80,8 @@ export function readBalancedReaction(text: string): ReadReaction {
     });
   }
   return {
-    equation: result.equation,
-    terms: parsed.terms.map((t, index) => ({
+    equation,
+    terms: balancing.equation.terms.map((t, index) => ({
       index,
       formula: t.species.formula,
       hill: t.species.hill,
@@ -75,7 +90,7 @@ export function readBalancedReaction(text: string): ReadReaction {
       descriptor: t.species.descriptor,
       elements: Object.keys(t.species.composition),
       side: t.side,
-      coefficient: new Fraction(result.terms[index]!.coefficient),
+      coefficient: fractionOf(t.coefficient),
     })),
     warnings,
   };

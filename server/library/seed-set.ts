@@ -1,6 +1,6 @@
 import Papa from 'papaparse';
 import { z } from 'zod';
-import { balanceParsedEquation, molarMass, parseEquation, parseFormula } from '@shared/chemistry/index';
+import { balanceEquation, molarMass, parseEquation, parseFormula, ratText } from '@shared/chemistry/index';
 import { thermoModelIssues, validRange } from '@shared/chemistry/thermo/index';
 import { thermoFormSchema, thermoScaleSchema } from '@shared/schemas/thermo';
 import {
@@ -533,8 +533,8 @@ function toReaction(r: z.output<typeof reactionRow>, origin: Origin, problems: S
   if (unphased.length > 0) return fail('equation', `every species needs its phase: ${unphased.join(', ')}.`);
   if (parsed.heatTerms.length > 0 || parsed.enthalpy)
     return fail('equation', 'write ΔH in the delta_h column, not in the equation.');
-  const balance = balanceParsedEquation(parsed);
-  if (!balance.asGiven) return fail('equation', `it does not balance as written (balanced: ${balance.equation}).`);
+  const balance = balanceEquation(parsed, {});
+  if (!balance.asGiven) return fail('equation', 'it does not balance as written.');
   if (r.uncertainty_kind === 'none' && r.uncertainty !== null)
     return fail('uncertainty', 'uncertainty_kind none takes no uncertainty.');
   if (r.uncertainty_kind !== 'none' && r.uncertainty === null)
@@ -549,7 +549,7 @@ function toReaction(r: z.output<typeof reactionRow>, origin: Origin, problems: S
       ? keyOfSpecies({ ...t.species, descriptor: `${r.molality} mol/kg` })
       : keyOfSpecies(t.species);
     const sign = t.side === 'reactant' ? '-' : '';
-    return { key, coefficient: `${sign}${t.coefficient}`, finiteMolality };
+    return { key, coefficient: `${sign}${ratText(t.coefficient)}`, finiteMolality };
   });
   return {
     origin,

@@ -35,7 +35,9 @@ export function passwordResetMail(args: { to: string; link: string; minutes: num
       'Open this link to choose a new password:',
       args.link,
       '',
-      `The link works once, within ${args.minutes} minutes. If you did not ask, ignore this message; your password stays as it is.`,
+      `The link works once, within ${args.minutes} minutes. Choosing a new password signs the account out everywhere and revokes all its API tokens; scripts need a new token afterwards.`,
+      '',
+      'If you did not ask, ignore this message; your password stays as it is.',
     ].join('\n'),
   };
 }

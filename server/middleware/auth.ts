@@ -1,7 +1,8 @@
 import type { CookieOptions, Request, RequestHandler, Response } from 'express';
-import type { AppDeps, RequestMeta } from '../context';
+import type { AppDeps } from '../context';
 import { AppError } from '../errors';
 import { resolveApiToken, resolveSession } from '../services/session.service';
+import { serviceContext } from './service-context';
 
 /** Name of the session cookie. */
 export const SESSION_COOKIE = 'tl_session';
@@ -21,11 +22,6 @@ export function clearSessionCookie(req: Request, res: Response): void {
   res.clearCookie(SESSION_COOKIE, cookieOptions(req));
 }
 
-/** Address and user agent for the audit log. */
-export function requestMeta(req: Request): RequestMeta {
-  return { ip: req.ip ?? null, userAgent: req.get('user-agent') ?? null };
-}
-
 /**
  * Resolves who is calling: `Authorization: Bearer tl_…` first, else the `tl_session` cookie.
  * A bad token is a 401 at once (a script should hear about it); a stale cookie just makes the
@@ -39,7 +35,7 @@ export function authenticate(deps: AppDeps): RequestHandler {
     if (header !== undefined) {
       const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
       if (!match) throw new AppError('unauthenticated', 'Send the API token as "Authorization: Bearer tl_…".');
-      const principal = await resolveApiToken(deps.db, match[1]!);
+      const principal = await resolveApiToken(serviceContext(deps, req, res), { secret: match[1]! });
       if (!principal) throw new AppError('unauthenticated', 'This API token is not valid, has expired or was revoked.');
       res.locals.principal = principal;
       return next();
@@ -47,7 +43,7 @@ export function authenticate(deps: AppDeps): RequestHandler {
     const secret: unknown = req.cookies?.[SESSION_COOKIE];
     if (typeof secret === 'string' && secret.length > 0) {
       res.locals.cookieAuth = true;
-      const principal = await resolveSession(deps.db, secret, deps.config);
+      const principal = await resolveSession(serviceContext(deps, req, res), { secret });
       if (principal) res.locals.principal = principal;
       else clearSessionCookie(req, res);
     }

@@ -1,19 +1,13 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
 import type { ValidationIssue } from '@shared/schemas/errors';
+import type { ValidatedParts } from '../context';
 import { AppError } from '../errors';
 
 export interface RequestSchemas {
   params?: z.ZodType | undefined;
   query?: z.ZodType | undefined;
   body?: z.ZodType | undefined;
-}
-
-/** Parsed request parts, kept in res.locals because Express 5's req.query is a read-only getter. */
-export interface ValidatedParts {
-  params: unknown;
-  query: unknown;
-  body: unknown;
 }
 
 function friendlyMessage(issue: z.core.$ZodIssue): string {
@@ -62,13 +56,4 @@ export function validate(schemas: RequestSchemas): RequestHandler {
     res.locals.input = out;
     next();
   };
-}
-
-declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
-  namespace Express {
-    interface Locals {
-      input: ValidatedParts;
-    }
-  }
 }

@@ -7,6 +7,7 @@ import {
   tokenIdParamsSchema,
   updateAccountInputSchema,
 } from '@shared/schemas/account';
+import { requireActor } from '../context';
 import {
   changePassword,
   createApiToken,
@@ -14,8 +15,8 @@ import {
   revokeApiToken,
   updateDisplayName,
 } from '../services/account.service';
-import { sessionInfoFor } from '../services/users.service';
-import { defineRoute, signedIn } from './registry';
+import { sessionInfo } from '../services/users.service';
+import { defineRoute } from './registry';
 
 /** The caller's own account and API tokens. */
 export const accountRoutes = [
@@ -26,7 +27,7 @@ export const accountRoutes = [
     tags: ['account'],
     access: 'signed_in',
     responses: { 200: sessionReplySchema },
-    handler: (ctx) => sessionInfoFor(ctx.deps.db, signedIn(ctx)),
+    handler: ({ ctx }) => sessionInfo(ctx, {}),
   }),
   defineRoute({
     method: 'patch',
@@ -36,21 +37,19 @@ export const accountRoutes = [
     access: 'signed_in',
     request: { body: updateAccountInputSchema },
     responses: { 200: sessionReplySchema },
-    async handler(ctx) {
-      const updated = await updateDisplayName(ctx.deps.db, signedIn(ctx), ctx.body.displayName);
-      return sessionInfoFor(ctx.deps.db, updated);
-    },
+    handler: ({ ctx, body }) => updateDisplayName(requireActor(ctx), body),
   }),
   defineRoute({
     method: 'post',
     path: '/account/password',
     summary: 'Change your password',
-    description: 'Needs the current password; your other sessions end.',
+    description:
+      'Needs the current password. Your other sessions end and all your API tokens are revoked (scripts need a new token).',
     tags: ['account'],
     access: 'signed_in',
     request: { body: changePasswordInputSchema },
     responses: { 204: null },
-    handler: (ctx) => changePassword(ctx.deps.db, signedIn(ctx), ctx.body, ctx.meta),
+    handler: ({ ctx, body }) => changePassword(requireActor(ctx), body),
   }),
   defineRoute({
     method: 'get',
@@ -59,18 +58,19 @@ export const accountRoutes = [
     tags: ['account'],
     access: 'signed_in',
     responses: { 200: apiTokenListSchema },
-    handler: async (ctx) => ({ tokens: await listApiTokens(ctx.deps.db, signedIn(ctx).user.id) }),
+    handler: ({ ctx }) => listApiTokens(requireActor(ctx), {}),
   }),
   defineRoute({
     method: 'post',
     path: '/account/tokens',
     summary: 'Create an API token',
-    description: 'The secret is in this reply only. The token acts with your roles.',
+    description:
+      'The secret is in this reply only. The token acts with your roles. Only a password sign-in may create tokens: a request made with a token gets 403.',
     tags: ['account'],
     access: 'signed_in',
     request: { body: createApiTokenInputSchema },
     responses: { 201: createdApiTokenSchema },
-    handler: (ctx) => createApiToken(ctx.deps.db, signedIn(ctx), ctx.body, ctx.meta),
+    handler: ({ ctx, body }) => createApiToken(requireActor(ctx), body),
   }),
   defineRoute({
     method: 'delete',
@@ -80,6 +80,6 @@ export const accountRoutes = [
     access: 'signed_in',
     request: { params: tokenIdParamsSchema },
     responses: { 204: null },
-    handler: (ctx) => revokeApiToken(ctx.deps.db, signedIn(ctx), ctx.params.tokenId, ctx.meta),
+    handler: ({ ctx, params }) => revokeApiToken(requireActor(ctx), params),
   }),
 ];

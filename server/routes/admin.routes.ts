@@ -10,9 +10,10 @@ import {
   updateUserInputSchema,
   userParamsSchema,
 } from '@shared/schemas/admin';
+import { requireActor } from '../context';
 import { createTeam, listTeams, listUsers, readOutbox, updateUser } from '../services/admin.service';
 import { listAuditEvents } from '../services/audit.service';
-import { defineRoute, signedIn } from './registry';
+import { defineRoute } from './registry';
 
 const siteAdmin = { site: 'site_admin' } as const;
 
@@ -25,7 +26,7 @@ export const adminRoutes = [
     tags: ['admin'],
     access: siteAdmin,
     responses: { 200: adminUserListSchema },
-    handler: async ({ deps }) => ({ users: await listUsers(deps.db) }),
+    handler: ({ ctx }) => listUsers(ctx, {}),
   }),
   defineRoute({
     method: 'patch',
@@ -36,7 +37,7 @@ export const adminRoutes = [
     access: siteAdmin,
     request: { params: userParamsSchema, body: updateUserInputSchema },
     responses: { 200: adminUserSchema },
-    handler: (ctx) => updateUser(ctx.deps.db, signedIn(ctx), ctx.params.userId, ctx.body, ctx.meta),
+    handler: ({ ctx, params, body }) => updateUser(requireActor(ctx), { ...body, userId: params.userId }),
   }),
   defineRoute({
     method: 'get',
@@ -45,18 +46,19 @@ export const adminRoutes = [
     tags: ['admin'],
     access: siteAdmin,
     responses: { 200: adminTeamListSchema },
-    handler: async ({ deps }) => ({ teams: await listTeams(deps.db) }),
+    handler: ({ ctx }) => listTeams(ctx, {}),
   }),
   defineRoute({
     method: 'post',
     path: '/admin/teams',
     summary: 'Create a team',
-    description: 'E-mails its first team admin an invitation.',
+    description:
+      'E-mails its first team admin an invitation. If that e-mail cannot be sent the team is not created (503).',
     tags: ['admin'],
     access: siteAdmin,
     request: { body: createTeamInputSchema },
     responses: { 201: adminTeamSchema },
-    handler: (ctx) => createTeam(ctx.deps, signedIn(ctx), ctx.body, ctx.meta),
+    handler: ({ ctx, body }) => createTeam(requireActor(ctx), body),
   }),
   defineRoute({
     method: 'get',
@@ -66,7 +68,7 @@ export const adminRoutes = [
     tags: ['admin'],
     access: siteAdmin,
     responses: { 200: outboxSchema },
-    handler: ({ deps }) => readOutbox(deps),
+    handler: ({ ctx }) => readOutbox(ctx, {}),
   }),
   defineRoute({
     method: 'get',
@@ -76,6 +78,6 @@ export const adminRoutes = [
     access: siteAdmin,
     request: { query: auditQuerySchema },
     responses: { 200: auditEventListSchema },
-    handler: async ({ deps, query }) => ({ events: await listAuditEvents(deps.db, query) }),
+    handler: ({ ctx, query }) => listAuditEvents(ctx, query),
   }),
 ];

@@ -15,6 +15,6 @@ export const deriveRoutes = [
     rateLimit: 'calc',
     request: { body: deriveInputSchema },
     responses: { 200: deriveResultSchema },
-    handler: ({ deps, body }) => deriveReactionEnthalpy(deps.library, body),
+    handler: ({ ctx, body }) => deriveReactionEnthalpy(ctx, body),
   }),
 ];

@@ -1,6 +1,6 @@
-import { sql } from 'drizzle-orm';
 import { healthSchema } from '@shared/schemas/admin';
-import { defineRoute } from './registry';
+import { checkHealth } from '../services/health.service';
+import { defineRoute, ReplyWithStatus } from './registry';
 
 /** Liveness and database check, for load balancers and the status line. */
 export const healthRoutes = [
@@ -8,19 +8,13 @@ export const healthRoutes = [
     method: 'get',
     path: '/health',
     summary: 'Server and database status',
+    description: '503 with database "down" when the database does not answer.',
     tags: ['system'],
     access: 'public',
     responses: { 200: healthSchema, 503: healthSchema },
-    async handler({ deps, res }) {
-      let database: 'ok' | 'down' = 'ok';
-      try {
-        await deps.db.execute(sql`select 1`);
-      } catch {
-        database = 'down';
-      }
-      const body = { status: database === 'ok' ? 'ok' : 'degraded', database, version: deps.config.version } as const;
-      if (database === 'down') res.status(503).json(body);
-      return body;
+    async handler({ ctx }) {
+      const health = await checkHealth(ctx, {});
+      return health.database === 'ok' ? health : new ReplyWithStatus(503, health);
     },
   }),
 ];

@@ -39,7 +39,7 @@ function openApiRoute(routes: () => readonly AnyRoute[]): AnyRoute {
     tags: ['system'],
     access: 'public',
     responses: { 200: z.record(z.string(), z.unknown()) },
-    handler: ({ deps }) => (cached ??= buildOpenApiDocument(routes(), deps.config.version)),
+    handler: ({ ctx }) => (cached ??= buildOpenApiDocument(routes(), ctx.config)),
   });
 }
 

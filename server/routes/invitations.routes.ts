@@ -6,7 +6,7 @@ import {
 } from '@shared/schemas/teams';
 import { setSessionCookie } from '../middleware/auth';
 import { acceptInvitation, previewInvitation } from '../services/invitations.service';
-import { sessionInfoFor } from '../services/users.service';
+import { sessionInfo } from '../services/users.service';
 import { defineRoute } from './registry';
 
 /** Opening and accepting an e-mailed invitation link. */
@@ -19,7 +19,7 @@ export const invitationRoutes = [
     access: 'public',
     request: { params: invitationTokenParamsSchema },
     responses: { 200: invitationPreviewSchema },
-    handler: ({ deps, params }) => previewInvitation(deps, params.token),
+    handler: ({ ctx, params }) => previewInvitation(ctx, params),
   }),
   defineRoute({
     method: 'post',
@@ -31,10 +31,10 @@ export const invitationRoutes = [
     access: 'public',
     request: { params: invitationTokenParamsSchema, body: acceptInvitationInputSchema },
     responses: { 200: sessionInfoSchema },
-    async handler({ deps, params, body, principal, meta, req, res }) {
-      const accepted = await acceptInvitation(deps, params.token, body, principal, meta);
+    async handler({ ctx, params, body, req, res }) {
+      const accepted = await acceptInvitation(ctx, { ...body, token: params.token });
       setSessionCookie(req, res, accepted.session.secret, accepted.session.expiresAt);
-      return sessionInfoFor(deps.db, accepted.principal);
+      return sessionInfo(ctx, { principal: accepted.principal });
     },
   }),
 ];

@@ -9,7 +9,8 @@ import {
   libraryImportResultSchema,
 } from '@shared/schemas/library';
 import { getSpecies, importLibraryFiles, listRevisions, listSpecies } from '../services/library.service';
-import { defineRoute, signedIn } from './registry';
+import { requireActor } from '../context';
+import { defineRoute } from './registry';
 
 /** Reading the library: public, like the calculations, and rate-limited the same way. */
 export const libraryRoutes = [
@@ -24,7 +25,7 @@ export const libraryRoutes = [
     rateLimit: 'calc',
     request: { query: speciesQuerySchema },
     responses: { 200: speciesListSchema },
-    handler: ({ deps, query }) => listSpecies(deps.library, query),
+    handler: ({ ctx, query }) => listSpecies(ctx, query),
   }),
   defineRoute({
     method: 'get',
@@ -35,7 +36,7 @@ export const libraryRoutes = [
     rateLimit: 'calc',
     request: { params: speciesParamsSchema, query: speciesDetailQuerySchema },
     responses: { 200: speciesDetailSchema },
-    handler: ({ deps, params, query }) => getSpecies(deps.db, deps.library, params.speciesId, query.revision),
+    handler: ({ ctx, params, query }) => getSpecies(ctx, { speciesId: params.speciesId, revision: query.revision }),
   }),
   defineRoute({
     method: 'get',
@@ -45,7 +46,7 @@ export const libraryRoutes = [
     access: 'public',
     rateLimit: 'calc',
     responses: { 200: revisionListSchema },
-    handler: ({ deps }) => listRevisions(deps.db),
+    handler: ({ ctx }) => listRevisions(ctx, {}),
   }),
 
   defineRoute({
@@ -58,6 +59,6 @@ export const libraryRoutes = [
     access: { site: 'site_admin' },
     request: { body: libraryImportInputSchema },
     responses: { 201: libraryImportResultSchema },
-    handler: (ctx) => importLibraryFiles(ctx.deps.db, signedIn(ctx), ctx.meta, ctx.body),
+    handler: ({ ctx, body }) => importLibraryFiles(requireActor(ctx), body),
   }),
 ];

@@ -1,7 +1,8 @@
 import { teamIdParamsSchema } from '@shared/schemas/common';
 import { noteInputSchema, noteListSchema, noteParamsSchema, noteSchema } from '@shared/schemas/notes';
+import { requireActor } from '../context';
 import { createNote, deleteNote, listNotes, updateNote } from '../services/notes.service';
-import { defineRoute, signedIn } from './registry';
+import { defineRoute } from './registry';
 
 /** Team notes: viewers read, members write. */
 export const noteRoutes = [
@@ -13,7 +14,7 @@ export const noteRoutes = [
     access: { team: 'viewer' },
     request: { params: teamIdParamsSchema },
     responses: { 200: noteListSchema },
-    handler: async ({ deps, params }) => ({ notes: await listNotes(deps.db, params.teamId) }),
+    handler: ({ ctx, params }) => listNotes(ctx, params),
   }),
   defineRoute({
     method: 'post',
@@ -23,7 +24,7 @@ export const noteRoutes = [
     access: { team: 'member' },
     request: { params: teamIdParamsSchema, body: noteInputSchema },
     responses: { 201: noteSchema },
-    handler: (ctx) => createNote(ctx.deps.db, signedIn(ctx), ctx.params.teamId, ctx.body),
+    handler: ({ ctx, params, body }) => createNote(requireActor(ctx), { ...body, ...params }),
   }),
   defineRoute({
     method: 'patch',
@@ -33,7 +34,7 @@ export const noteRoutes = [
     access: { team: 'member' },
     request: { params: noteParamsSchema, body: noteInputSchema },
     responses: { 200: noteSchema },
-    handler: ({ deps, params, body }) => updateNote(deps.db, params.teamId, params.noteId, body),
+    handler: ({ ctx, params, body }) => updateNote(requireActor(ctx), { ...body, ...params }),
   }),
   defineRoute({
     method: 'delete',
@@ -43,6 +44,6 @@ export const noteRoutes = [
     access: { team: 'member' },
     request: { params: noteParamsSchema },
     responses: { 204: null },
-    handler: ({ deps, params }) => deleteNote(deps.db, params.teamId, params.noteId),
+    handler: ({ ctx, params }) => deleteNote(requireActor(ctx), params),
   }),
 ];

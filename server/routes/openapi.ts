@@ -1,6 +1,8 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
+import { describeAccess } from '@shared/schemas/access';
 import { errorEnvelopeSchema } from '@shared/schemas/errors';
-import { API_PREFIX, describeAccess, type AnyRoute } from './registry';
+import type { AppConfig } from '../env';
+import { API_PREFIX, type AnyRoute } from './registry';
 
 const ERROR_DESCRIPTIONS: Record<number, string> = {
   400: 'Invalid input (validation_failed, parse_error or bad_request).',
@@ -9,9 +11,10 @@ const ERROR_DESCRIPTIONS: Record<number, string> = {
   404: 'No such resource.',
   409: 'Conflicts with the current state.',
   410: 'The link or token has expired or was used.',
-  413: 'Body too large.',
+  413: 'Body too large, or the request asks for more work than a work limit allows (details: limit, max, found).',
   415: 'Body is not JSON.',
   429: 'Too many requests; see Retry-After.',
+  503: 'Unavailable: the calculation exceeded its time budget, the calculation queue is full, or e-mail could not be sent; see Retry-After.',
 };
 
 function errorResponsesFor(route: AnyRoute): number[] {
@@ -19,12 +22,12 @@ function errorResponsesFor(route: AnyRoute): number[] {
   if (route.access !== 'public') codes.push(401, 403);
   if (route.path.includes(':')) codes.push(404);
   if (route.request?.body) codes.push(413, 415);
-  if (route.rateLimit) codes.push(429);
+  if (route.rateLimit) codes.push(429, 503);
   return codes;
 }
 
 /** The OpenAPI 3.1 document for the given routes, built from the same definitions as the router. */
-export function buildOpenApiDocument(routes: readonly AnyRoute[], version: string): object {
+export function buildOpenApiDocument(routes: readonly AnyRoute[], config: AppConfig): object {
   const registry = new OpenAPIRegistry();
   registry.registerComponent('securitySchemes', 'sessionCookie', { type: 'apiKey', in: 'cookie', name: 'tl_session' });
   registry.registerComponent('securitySchemes', 'apiToken', {
@@ -51,7 +54,18 @@ export function buildOpenApiDocument(routes: readonly AnyRoute[], version: strin
       method: route.method,
       path: API_PREFIX + route.path.replace(/:(\w+)/g, '{$1}'),
       summary: route.summary,
-      description: [route.description, `Access: ${describeAccess(route.access)}.`].filter(Boolean).join('\n\n'),
+      description: [
+        route.description,
+        `Access: ${describeAccess(route.access)}.`,
+        route.describeLimits
+          ? `Work limits:\n${route
+              .describeLimits(config)
+              .map((l) => `- ${l}`)
+              .join('\n')}`
+          : undefined,
+      ]
+        .filter(Boolean)
+        .join('\n\n'),
       tags: route.tags,
       security: route.access === 'public' ? [] : [{ sessionCookie: [] }, { apiToken: [] }],
       'x-access': route.access,
@@ -68,7 +82,7 @@ export function buildOpenApiDocument(routes: readonly AnyRoute[], version: strin
   }
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',
-    info: { title: 'Thermoledger API', version, description: 'Reaction enthalpies a team can defend.' },
+    info: { title: 'Thermoledger API', version: config.version, description: 'Reaction enthalpies a team can defend.' },
     servers: [{ url: '/' }],
   });
 }

@@ -22,7 +22,7 @@ export const reactionEnthalpyRoutes = [
     rateLimit: 'calc',
     request: { body: reactionEnthalpyInputSchema },
     responses: { 200: reactionEnthalpyResultSchema },
-    handler: ({ deps, body }) => evaluateReactionEnthalpy(deps.library, body),
+    handler: ({ ctx, body }) => evaluateReactionEnthalpy(ctx, body),
   }),
   defineRoute({
     method: 'post',
@@ -34,6 +34,6 @@ export const reactionEnthalpyRoutes = [
     rateLimit: 'calc',
     request: { body: reactionHeatInputSchema },
     responses: { 200: reactionHeatResultSchema },
-    handler: ({ deps, body }) => evaluateReactionHeat(deps.library, body),
+    handler: ({ ctx, body }) => evaluateReactionHeat(ctx, body),
   }),
 ];

@@ -1,33 +1,38 @@
 import type { Request, Response } from 'express';
 import type { z } from 'zod';
-import type { SiteRole, TeamRole } from '@shared/schemas/roles';
-import type { AppDeps, Principal, RequestMeta } from '../context';
-import { AppError } from '../errors';
+import { API_PREFIX } from '@shared/api-prefix';
+import type { Access } from '@shared/schemas/access';
+import type { TeamRole } from '@shared/schemas/roles';
+import type { ServiceContext } from '../context';
+import type { AppConfig } from '../env';
 
-/**
- * Who may call a route: anyone; anyone signed in; members of the :teamId team with at least the
- * given role; or holders of a site role. A site admin has no automatic team access, and the
- * site roles do not include each other (a site admin is not a curator unless given that role too).
- */
-export type Access = 'public' | 'signed_in' | { team: TeamRole } | { site: SiteRole };
+export { API_PREFIX };
+export type { Access };
 
 export type HttpMethod = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
 type Parsed<S> = S extends z.ZodType ? z.output<S> : undefined;
 
-/** What a handler receives: the validated request parts and the app's services. */
+/** What a handler receives: the validated request parts and the context to pass to one service call. */
 export interface RouteContext<P, Q, B> {
   params: P;
   query: Q;
   body: B;
-  /** Null only on public routes called anonymously. */
-  principal: Principal | null;
+  /** The service context: dependencies, the caller (null on public routes called anonymously), request metadata. */
+  ctx: ServiceContext;
   /** The caller's role in :teamId, on team routes. */
   teamRole: TeamRole | null;
-  deps: AppDeps;
-  meta: RequestMeta;
+  /** For cookies only (sign-in and sign-out); everything else goes through ctx. */
   req: Request;
   res: Response;
+}
+
+/** A handler's answer with a status other than the route's success status (e.g. health's 503). */
+export class ReplyWithStatus {
+  constructor(
+    readonly status: number,
+    readonly body: unknown,
+  ) {}
 }
 
 /** A route declared as data; the router and the OpenAPI document are both built from these. */
@@ -46,8 +51,16 @@ export interface RouteDefinition<
   request?: { params?: P; query?: Q; body?: B };
   /** Reply schema per status; null means no body (204, 202). The lowest 2xx is the success status. */
   responses: Record<number, z.ZodType | null>;
-  /** Calculation endpoints share a per-address request limit. */
+  /** Calculation endpoints share per-address limits: requests a minute, and equation lines a minute. */
   rateLimit?: 'calc';
+  /**
+   * Cheap measurement of the work a request asks for, on the raw body before validation: throws
+   * a 413 naming the limit when it is too much, and returns the number of equation lines, which
+   * weighs the request against the line budget.
+   */
+  measureWork?: (body: unknown, config: AppConfig) => number;
+  /** The work limits of this route, in words with the configured values, for its OpenAPI description. */
+  describeLimits?: (config: AppConfig) => string[];
   /** Returns the reply body (ignored for a body-less success status). */
   handler: (ctx: RouteContext<Parsed<P>, Parsed<Q>, Parsed<B>>) => unknown;
 }
@@ -66,9 +79,6 @@ export function defineRoute<
   return route as AnyRoute;
 }
 
-/** Base path of the versioned API. */
-export const API_PREFIX = '/api/v1';
-
 /** "GET /api/v1/teams/:teamId/notes": the key tests and logs use for a route. */
 export function routeKey(route: Pick<AnyRoute, 'method' | 'path'>): string {
   return `${route.method.toUpperCase()} ${API_PREFIX}${route.path}`;
@@ -81,18 +91,4 @@ export function successStatus(route: AnyRoute): number {
     .filter((s) => s >= 200 && s < 300)
     .sort((a, b) => a - b);
   return ok[0] ?? 200;
-}
-
-/** Plain words for an access level, for error messages and the OpenAPI document. */
-export function describeAccess(access: Access): string {
-  if (access === 'public') return 'anyone';
-  if (access === 'signed_in') return 'any signed-in user';
-  if ('team' in access) return `team members with role ${access.team} or above`;
-  return `users with the site role ${access.site}`;
-}
-
-/** The principal of a signed-in route (the access check guarantees one). */
-export function signedIn(ctx: Pick<RouteContext<unknown, unknown, unknown>, 'principal'>): Principal {
-  if (!ctx.principal) throw new AppError('unauthenticated', 'Sign in first, or send an API token.');
-  return ctx.principal;
 }

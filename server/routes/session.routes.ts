@@ -1,7 +1,7 @@
 import { sessionInfoSchema, signInInputSchema } from '@shared/schemas/session';
 import { clearSessionCookie, setSessionCookie } from '../middleware/auth';
 import { signIn, signOut } from '../services/session.service';
-import { sessionInfoFor } from '../services/users.service';
+import { sessionInfo } from '../services/users.service';
 import { defineRoute } from './registry';
 
 /** Signing in and out with e-mail and password. */
@@ -11,15 +11,15 @@ export const sessionRoutes = [
     path: '/session',
     summary: 'Sign in',
     description:
-      'Checks e-mail and password and sets the tl_session cookie. Failed attempts are limited per account and per address.',
+      'Checks e-mail and password and sets the tl_session cookie. Attempts are limited per account and per address (SIGNIN_MAX_FAILURES_PER_ACCOUNT, SIGNIN_MAX_FAILURES_PER_ADDRESS in SIGNIN_WINDOW_MINUTES), counted before the password is checked, so parallel attempts cannot get past the limit: 429 with Retry-After.',
     tags: ['session'],
     access: 'public',
     request: { body: signInInputSchema },
     responses: { 200: sessionInfoSchema },
-    async handler({ body, deps, meta, req, res, principal }) {
-      const { session, principal: signedIn } = await signIn(deps, body, meta, principal?.sessionId);
+    async handler({ ctx, body, req, res }) {
+      const { session, principal } = await signIn(ctx, body);
       setSessionCookie(req, res, session.secret, session.expiresAt);
-      return sessionInfoFor(deps.db, signedIn);
+      return sessionInfo(ctx, { principal });
     },
   }),
   defineRoute({
@@ -29,7 +29,7 @@ export const sessionRoutes = [
     tags: ['session'],
     access: 'public',
     responses: { 200: sessionInfoSchema },
-    handler: ({ deps, principal }) => sessionInfoFor(deps.db, principal),
+    handler: ({ ctx }) => sessionInfo(ctx, {}),
   }),
   defineRoute({
     method: 'delete',
@@ -39,8 +39,8 @@ export const sessionRoutes = [
     tags: ['session'],
     access: 'public',
     responses: { 204: null },
-    async handler({ deps, principal, meta, req, res }) {
-      await signOut(deps.db, principal, principal?.via === 'session' ? principal.sessionId : undefined, meta);
+    async handler({ ctx, req, res }) {
+      await signOut(ctx, {});
       clearSessionCookie(req, res);
     },
   }),

@@ -10,9 +10,10 @@ import {
   teamSchema,
   updateMemberInputSchema,
 } from '@shared/schemas/teams';
+import { requireActor } from '../context';
 import { createInvitation, listInvitations, revokeInvitation } from '../services/invitations.service';
 import { getTeam, listMembers, removeMember, updateMemberRole } from '../services/teams.service';
-import { defineRoute, signedIn } from './registry';
+import { defineRoute } from './registry';
 
 /** A team, its members and its invitations. */
 export const teamRoutes = [
@@ -24,7 +25,7 @@ export const teamRoutes = [
     access: { team: 'viewer' },
     request: { params: teamIdParamsSchema },
     responses: { 200: teamSchema },
-    handler: ({ deps, params }) => getTeam(deps.db, params.teamId),
+    handler: ({ ctx, params }) => getTeam(ctx, params),
   }),
   defineRoute({
     method: 'get',
@@ -34,7 +35,7 @@ export const teamRoutes = [
     access: { team: 'viewer' },
     request: { params: teamIdParamsSchema },
     responses: { 200: teamMemberListSchema },
-    handler: async ({ deps, params }) => ({ members: await listMembers(deps.db, params.teamId) }),
+    handler: ({ ctx, params }) => listMembers(ctx, params),
   }),
   defineRoute({
     method: 'patch',
@@ -45,8 +46,7 @@ export const teamRoutes = [
     access: { team: 'team_admin' },
     request: { params: memberParamsSchema, body: updateMemberInputSchema },
     responses: { 200: teamMemberSchema },
-    handler: (ctx) =>
-      updateMemberRole(ctx.deps.db, signedIn(ctx), ctx.params.teamId, ctx.params.userId, ctx.body.role, ctx.meta),
+    handler: ({ ctx, params, body }) => updateMemberRole(requireActor(ctx), { ...body, ...params }),
   }),
   defineRoute({
     method: 'delete',
@@ -57,7 +57,7 @@ export const teamRoutes = [
     access: { team: 'team_admin' },
     request: { params: memberParamsSchema },
     responses: { 204: null },
-    handler: (ctx) => removeMember(ctx.deps.db, signedIn(ctx), ctx.params.teamId, ctx.params.userId, ctx.meta),
+    handler: ({ ctx, params }) => removeMember(requireActor(ctx), params),
   }),
   defineRoute({
     method: 'get',
@@ -67,18 +67,19 @@ export const teamRoutes = [
     access: { team: 'team_admin' },
     request: { params: teamIdParamsSchema },
     responses: { 200: invitationListSchema },
-    handler: async ({ deps, params }) => ({ invitations: await listInvitations(deps, params.teamId) }),
+    handler: ({ ctx, params }) => listInvitations(ctx, params),
   }),
   defineRoute({
     method: 'post',
     path: '/teams/:teamId/invitations',
     summary: 'Invite someone by e-mail',
-    description: 'E-mails a link valid for 7 days.',
+    description:
+      'E-mails a link valid for 7 days; an earlier open invitation for the same address is withdrawn once the new one is sent. If the e-mail cannot be sent nothing changes (503).',
     tags: ['teams'],
     access: { team: 'team_admin' },
     request: { params: teamIdParamsSchema, body: createInvitationInputSchema },
     responses: { 201: invitationSchema },
-    handler: (ctx) => createInvitation(ctx.deps, signedIn(ctx), ctx.params.teamId, ctx.body, ctx.meta),
+    handler: ({ ctx, params, body }) => createInvitation(requireActor(ctx), { ...body, ...params }),
   }),
   defineRoute({
     method: 'delete',
@@ -88,6 +89,6 @@ export const teamRoutes = [
     access: { team: 'team_admin' },
     request: { params: invitationParamsSchema },
     responses: { 204: null },
-    handler: (ctx) => revokeInvitation(ctx.deps, signedIn(ctx), ctx.params.teamId, ctx.params.invitationId, ctx.meta),
+    handler: ({ ctx, params }) => revokeInvitation(requireActor(ctx), params),
   }),
 ];

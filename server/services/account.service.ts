@@ -1,33 +1,39 @@
 import { and, desc, eq } from 'drizzle-orm';
-import type { ApiToken, ChangePasswordInput, CreateApiTokenInput, CreatedApiToken } from '@shared/schemas/account';
-import type { Db } from '../db/client';
+import type {
+  ApiToken,
+  ChangePasswordInput,
+  CreateApiTokenInput,
+  CreatedApiToken,
+  UpdateAccountInput,
+} from '@shared/schemas/account';
+import type { SessionInfo } from '@shared/schemas/session';
+import type { ActorContext } from '../context';
+import { recordAudit } from '../db/queries/audit';
+import { endUserSessions, revokeUserTokens } from '../db/queries/credentials';
+import { findUserById, toSessionUser } from '../db/queries/users';
 import { apiTokens, users, type ApiTokenRow } from '../db/tables/index';
 import { AppError, errors } from '../errors';
-import type { Principal, RequestMeta } from '../context';
 import { hashPassword, hashSecret, newApiTokenSecret, verifyPassword } from '../lib/secrets';
-import { recordAudit } from './audit.service';
-import { endUserSessions } from './session.service';
-import { findUserById, toSessionUser } from './users.service';
+import { sessionInfo } from './users.service';
 
-/** Changes the display name; returns the updated principal's user. */
-export async function updateDisplayName(db: Db, principal: Principal, displayName: string): Promise<Principal> {
-  const [row] = await db
+/** Changes the caller's display name; returns the updated session info. */
+export async function updateDisplayName(ctx: ActorContext, input: UpdateAccountInput): Promise<SessionInfo> {
+  const [row] = await ctx.db
     .update(users)
-    .set({ displayName, updatedAt: new Date() })
-    .where(eq(users.id, principal.user.id))
+    .set({ displayName: input.displayName, updatedAt: new Date() })
+    .where(eq(users.id, ctx.actor.user.id))
     .returning();
   if (!row) throw errors.notFound('Your account');
-  return { ...principal, user: toSessionUser(row) };
+  return sessionInfo(ctx, { principal: { ...ctx.actor, user: toSessionUser(row) } });
 }
 
-/** Changes the password after checking the current one; ends the user's other sessions. */
-export async function changePassword(
-  db: Db,
-  principal: Principal,
-  input: ChangePasswordInput,
-  meta: RequestMeta,
-): Promise<void> {
-  const user = await findUserById(db, principal.user.id);
+/**
+ * Changes the password after checking the current one. Every other session ends and every API
+ * token is revoked: whoever knew the old password may have made one.
+ */
+export async function changePassword(ctx: ActorContext, input: ChangePasswordInput): Promise<void> {
+  const { db, actor, meta } = ctx;
+  const user = await findUserById(db, actor.user.id);
   if (!user) throw errors.notFound('Your account');
   if (!(await verifyPassword(user.passwordHash, input.currentPassword))) {
     throw errors.validation(['body', 'currentPassword'], 'The current password is wrong.');
@@ -35,8 +41,9 @@ export async function changePassword(
   const passwordHash = await hashPassword(input.newPassword);
   await db.transaction(async (tx) => {
     await tx.update(users).set({ passwordHash, updatedAt: new Date() }).where(eq(users.id, user.id));
-    await endUserSessions(tx, user.id, principal.sessionId);
-    await recordAudit(tx, { action: 'password.changed', actor: user, meta });
+    await endUserSessions(tx, user.id, actor.via === 'session' ? actor.sessionId : undefined);
+    const tokensRevoked = await revokeUserTokens(tx, user.id);
+    await recordAudit(tx, { action: 'password.changed', actor: user, meta, detail: { tokensRevoked } });
   });
 }
 
@@ -52,25 +59,31 @@ function toApiToken(row: ApiTokenRow): ApiToken {
 }
 
 /** The caller's API tokens, newest first. */
-export async function listApiTokens(db: Db, userId: string): Promise<ApiToken[]> {
-  const rows = await db.select().from(apiTokens).where(eq(apiTokens.userId, userId)).orderBy(desc(apiTokens.createdAt));
-  return rows.map(toApiToken);
+export async function listApiTokens(ctx: ActorContext, _input: object = {}): Promise<{ tokens: ApiToken[] }> {
+  const rows = await ctx.db
+    .select()
+    .from(apiTokens)
+    .where(eq(apiTokens.userId, ctx.actor.user.id))
+    .orderBy(desc(apiTokens.createdAt));
+  return { tokens: rows.map(toApiToken) };
 }
 
-/** Creates a token; the secret is returned this once and stored only as a hash. */
-export async function createApiToken(
-  db: Db,
-  principal: Principal,
-  input: CreateApiTokenInput,
-  meta: RequestMeta,
-): Promise<CreatedApiToken> {
+/**
+ * Creates a token; the secret is returned this once and stored only as a hash. Only a password
+ * sign-in may do this: a leaked token must not be able to mint replacements that outlive its revocation.
+ */
+export async function createApiToken(ctx: ActorContext, input: CreateApiTokenInput): Promise<CreatedApiToken> {
+  const { db, actor, meta } = ctx;
+  if (actor.via !== 'session') {
+    throw new AppError('forbidden', 'An API token cannot create tokens. Sign in with your password to make one.');
+  }
   const secret = newApiTokenSecret();
   const expiresAt = input.expiresInDays ? new Date(Date.now() + input.expiresInDays * 86_400_000) : null;
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(apiTokens)
       .values({
-        userId: principal.user.id,
+        userId: actor.user.id,
         name: input.name,
         prefix: secret.slice(0, 10),
         tokenHash: hashSecret(secret),
@@ -79,7 +92,7 @@ export async function createApiToken(
       .returning();
     await recordAudit(tx, {
       action: 'token.created',
-      actor: principal.user,
+      actor: actor.user,
       meta,
       detail: { tokenId: row!.id, name: input.name },
     });
@@ -88,16 +101,17 @@ export async function createApiToken(
 }
 
 /** Revokes one of the caller's tokens (404 for someone else's: ids are not confirmed). */
-export async function revokeApiToken(db: Db, principal: Principal, tokenId: string, meta: RequestMeta): Promise<void> {
+export async function revokeApiToken(ctx: ActorContext, input: { tokenId: string }): Promise<void> {
+  const { db, actor, meta } = ctx;
   await db.transaction(async (tx) => {
     const [row] = await tx
       .delete(apiTokens)
-      .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, principal.user.id)))
+      .where(and(eq(apiTokens.id, input.tokenId), eq(apiTokens.userId, actor.user.id)))
       .returning({ id: apiTokens.id, name: apiTokens.name });
     if (!row) throw new AppError('not_found', 'That API token was not found among yours.');
     await recordAudit(tx, {
       action: 'token.revoked',
-      actor: principal.user,
+      actor: actor.user,
       meta,
       detail: { tokenId: row.id, name: row.name },
     });

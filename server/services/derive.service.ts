@@ -1,8 +1,14 @@
 import Fraction from 'fraction.js';
-import { ChemistryError, EquationParseError, parseEquation, balanceParsedEquation } from '@shared/chemistry/index';
+import {
+  balanceEquation,
+  ChemistryError,
+  EquationParseError,
+  formatEquation,
+  parseEquation,
+} from '@shared/chemistry/index';
 import {
   buildHessNetwork,
-  deriveEnthalpy,
+  deriveEnthalpyAsync,
   extendHessNetwork,
   type Derivation,
   type HessNetwork,
@@ -15,10 +21,11 @@ import { reactionPropertiesAt } from '@shared/chemistry/thermo/index';
 import { resolveSpecies } from '@shared/library/resolve-species';
 import type { DeriveInput, DeriveResult, GivenReaction } from '@shared/schemas/derive';
 import { AppError } from '../errors';
+import { fractionOf } from '../library/read-reaction';
 import { keyOfSpecies } from '../library/seed-set';
 import { exact, libraryNetworkOf } from '../library/network';
 import { hillKey, selectedModel, selectedValue, type LibrarySnapshot } from '../library/snapshot';
-import type { LibraryCache } from '../library/snapshot';
+import type { ServiceContext } from '../context';
 import { snapshotFor } from './library.service';
 import { preparedModel, temperatureOf } from './reaction-enthalpy.service';
 
@@ -78,19 +85,20 @@ function readSpeciesTerms(
       `${where}: every species needs its phase label for a Hess sum — ${unphased.join(', ')} has none.`,
       { field: where, species: unphased },
     );
-  const result = balanceParsedEquation(parsed);
-  let coefficients = parsed.terms.map((t) => new Fraction(t.coefficient));
+  const result = balanceEquation(parsed, {});
+  const balancedText = formatEquation({ ...result.equation, enthalpy: null }, 'text');
+  let coefficients = parsed.terms.map((t) => fractionOf(t.coefficient));
   if (!result.asGiven) {
     if (balance === 'as-written' || result.status !== 'balanced')
       throw new ChemistryError(
         'unprocessable',
         result.status === 'balanced'
-          ? `${where} does not balance as written, so its ΔH is not defined; balanced it would read ${result.equation}.`
-          : `${where} cannot be balanced: ${result.reason ?? 'several balancings exist'}.`,
+          ? `${where} does not balance as written, so its ΔH is not defined; balanced it would read ${balancedText}.`
+          : `${where} cannot be balanced: ${result.impossible?.message ?? 'several balancings exist'}.`,
         { field: where },
       );
-    coefficients = result.terms.map((t) => new Fraction(t.coefficient));
-    warnings.push({ code: 'balanced_first', message: `The target was balanced first: ${result.equation}.` });
+    coefficients = result.equation.terms.map((t) => fractionOf(t.coefficient));
+    warnings.push({ code: 'balanced_first', message: `The target was balanced first: ${balancedText}.` });
   }
   const problems: string[] = [];
   const terms = parsed.terms.map((t, i) => {
@@ -125,7 +133,7 @@ function readSpeciesTerms(
   });
   if (problems.length > 0)
     throw new ChemistryError('unprocessable', `${where}: ${problems.join(' ')}`, { field: where });
-  return { terms, equation: field[0] === 'target' && !result.asGiven ? result.equation : text };
+  return { terms, equation: field[0] === 'target' && !result.asGiven ? balancedText : text };
 }
 
 const KCAL = new Fraction(4184, 1000);
@@ -206,12 +214,9 @@ function suggestionFor(species: string[]): string {
  * reactions, a given list, or both; ranks routes, tests their agreement with the covariance of
  * shared inputs, and combines them.
  */
-export async function deriveReactionEnthalpy(
-  library: LibraryCache,
-  input: DeriveInput,
-  limits: DeriveLimits = defaultDeriveLimits,
-): Promise<DeriveResult> {
-  const snapshot = await snapshotFor(library, input.revision);
+export async function deriveReactionEnthalpy(ctx: ServiceContext, input: DeriveInput): Promise<DeriveResult> {
+  const limits = defaultDeriveLimits;
+  const snapshot = await snapshotFor(ctx.library, input.revision);
   const warnings: Warning[] = [];
   const given = input.reactions ?? [];
   const using = input.using ?? (given.length > 0 ? 'both' : 'library');
@@ -232,7 +237,9 @@ export async function deriveReactionEnthalpy(
       'as-written',
       warnings,
     );
-    let { value, uncertainty } = givenDeltaH(reaction);
+    const stated = givenDeltaH(reaction);
+    const uncertainty = stated.uncertainty;
+    let value = stated.value;
     if (reaction.temperature) {
       const kelvin = temperatureOf(reaction.temperature, `${field}.temperature`);
       if (Math.abs(kelvin - 298.15) > 0.005) {
@@ -286,12 +293,19 @@ export async function deriveReactionEnthalpy(
     );
 
   const started = Date.now();
-  const derivation = deriveEnthalpy(network, targetTerms, inputs, {
-    maxSteps: limits.maxSteps,
-    maxRoutes: input.maxRoutes ?? 5,
-    maxExamined: limits.maxExamined,
-    outOfTime: () => Date.now() - started > limits.timeBudgetMs,
-  });
+  // The search runs in slices with a pause between them, so other requests are answered meanwhile.
+  const derivation = await deriveEnthalpyAsync(
+    network,
+    targetTerms,
+    inputs,
+    {
+      maxSteps: limits.maxSteps,
+      maxRoutes: input.maxRoutes ?? 5,
+      maxExamined: limits.maxExamined,
+      outOfTime: () => Date.now() - started > limits.timeBudgetMs,
+    },
+    () => new Promise<void>((resolve) => setImmediate(resolve)),
+  );
   if (derivation.search.stoppedBy)
     warnings.push({
       code: 'search_stopped',

@@ -5,20 +5,17 @@ import type {
   Invitation,
   InvitationPreview,
 } from '@shared/schemas/teams';
-import type { TeamRole } from '@shared/schemas/roles';
 import { roleLabels } from '@shared/schemas/roles';
-import type { AppDeps, Principal, RequestMeta } from '../context';
+import type { ActorContext, Principal, ServiceContext } from '../context';
 import type { Executor } from '../db/client';
+import { recordAudit } from '../db/queries/audit';
+import { insertSession, type NewSession } from '../db/queries/credentials';
+import { dropSupersededInvitations, insertInvitation } from '../db/queries/invitations';
+import { findUserByEmail, toSessionUser } from '../db/queries/users';
 import { invitations, memberships, sessions, teams, users, type InvitationRow } from '../db/tables/index';
 import { AppError, errors } from '../errors';
-import { hashPassword, hashSecret, randomSecret } from '../lib/secrets';
+import { hashPassword, hashSecret } from '../lib/secrets';
 import { invitationMail } from '../mail/messages';
-import { recordAudit } from './audit.service';
-import { createSession, type NewSession } from './session.service';
-import { findUserByEmail, toSessionUser } from './users.service';
-
-/** How long an invitation link works. */
-export const INVITATION_DAYS = 7;
 
 function toInvitation(row: InvitationRow): Invitation {
   return {
@@ -33,124 +30,117 @@ function toInvitation(row: InvitationRow): Invitation {
 }
 
 /** A team's invitations, newest first (accepted ones included, for the record). */
-export async function listInvitations(deps: AppDeps, teamId: string): Promise<Invitation[]> {
-  const rows = await deps.db
+export async function listInvitations(
+  ctx: ServiceContext,
+  input: { teamId: string },
+): Promise<{ invitations: Invitation[] }> {
+  const rows = await ctx.db
     .select()
     .from(invitations)
-    .where(eq(invitations.teamId, teamId))
+    .where(eq(invitations.teamId, input.teamId))
     .orderBy(desc(invitations.createdAt));
-  return rows.map(toInvitation);
-}
-
-/** Inserts an invitation (replacing an open one for the same address) and returns its link secret. */
-export async function insertInvitation(
-  tx: Executor,
-  args: { teamId: string; email: string; role: TeamRole; invitedBy: { id: string; name: string } | null },
-): Promise<{ row: InvitationRow; secret: string }> {
-  await tx
-    .delete(invitations)
-    .where(and(eq(invitations.teamId, args.teamId), eq(invitations.email, args.email), isNull(invitations.acceptedAt)));
-  const secret = randomSecret();
-  const [row] = await tx
-    .insert(invitations)
-    .values({
-      teamId: args.teamId,
-      email: args.email,
-      role: args.role,
-      tokenHash: hashSecret(secret),
-      invitedById: args.invitedBy?.id ?? null,
-      invitedByName: args.invitedBy?.name ?? 'Thermoledger',
-      expiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
-    })
-    .returning();
-  return { row: row!, secret };
+  return { invitations: rows.map(toInvitation) };
 }
 
 /**
- * E-mails the invitation link. If sending fails the invitation is withdrawn again, so nothing is
- * left half-done, and the caller gets 503.
+ * E-mails an invitation that was just inserted, then settles it: on success the older open
+ * invitations for the same address are withdrawn and the invitation is recorded in the audit log;
+ * if sending fails the new invitation is deleted again (the older ones keep working), the failure
+ * is recorded, and the caller gets 503. Either way nothing is left half-done.
  */
-export async function mailInvitation(
-  deps: AppDeps,
-  args: { row: InvitationRow; secret: string; teamName: string; inviterName: string },
+export async function deliverInvitation(
+  ctx: ActorContext,
+  input: { invitation: InvitationRow; secret: string; teamName: string; teamCreated?: boolean },
 ): Promise<void> {
-  const link = `${deps.config.publicUrl}/invitations/${encodeURIComponent(args.secret)}`;
+  const { db, mailer, config, actor, meta, log } = ctx;
+  const { invitation, secret, teamName } = input;
+  const detail = {
+    teamId: invitation.teamId,
+    invitationId: invitation.id,
+    email: invitation.email,
+    role: invitation.role,
+  };
+  const link = `${config.publicUrl}/invitations/${encodeURIComponent(secret)}`;
   try {
-    await deps.mailer.send(
+    await mailer.send(
       invitationMail({
-        to: args.row.email,
-        teamName: args.teamName,
-        inviterName: args.inviterName,
-        role: roleLabels[args.row.role].toLowerCase(),
+        to: invitation.email,
+        teamName,
+        inviterName: actor.user.displayName,
+        role: roleLabels[invitation.role].toLowerCase(),
         link,
-        expiresAt: args.row.expiresAt,
+        expiresAt: invitation.expiresAt,
       }),
     );
   } catch (err) {
-    await deps.db.delete(invitations).where(eq(invitations.id, args.row.id));
-    console.error('[mail] invitation e-mail failed:', (err as Error).message);
+    log.error({ err, requestId: meta.requestId }, 'invitation e-mail could not be sent');
+    await db.transaction(async (tx) => {
+      await tx.delete(invitations).where(eq(invitations.id, invitation.id));
+      await recordAudit(tx, {
+        action: 'invitation.mail_failed',
+        actor: actor.user,
+        meta,
+        detail: { ...detail, reason: (err as Error).message },
+      });
+    });
     throw new AppError(
       'unavailable',
-      'The invitation e-mail could not be sent, so no invitation was made. Try again later.',
+      input.teamCreated
+        ? 'The invitation e-mail to the first team admin could not be sent, so the team was not created. Try again later.'
+        : 'The invitation e-mail could not be sent, so no invitation was made. Try again later.',
+      undefined,
+      { 'Retry-After': '60' },
     );
   }
+  await db.transaction(async (tx) => {
+    await dropSupersededInvitations(tx, invitation);
+    await recordAudit(tx, { action: 'invitation.created', actor: actor.user, meta, detail });
+  });
 }
 
-/** Invites someone to a team by e-mail (409 when they are already a member). */
+/** Invites someone to a team by e-mail (409 when they are already a member, 503 when the e-mail cannot be sent). */
 export async function createInvitation(
-  deps: AppDeps,
-  actor: Principal,
-  teamId: string,
-  input: CreateInvitationInput,
-  meta: RequestMeta,
+  ctx: ActorContext,
+  input: CreateInvitationInput & { teamId: string },
 ): Promise<Invitation> {
-  const { row, secret, teamName } = await deps.db.transaction(async (tx) => {
-    const [team] = await tx.select().from(teams).where(eq(teams.id, teamId)).limit(1);
+  const { row, secret, teamName } = await ctx.db.transaction(async (tx) => {
+    const [team] = await tx.select().from(teams).where(eq(teams.id, input.teamId)).limit(1);
     if (!team) throw errors.notFound('The team');
     const [existing] = await tx
       .select({ userId: users.id })
       .from(memberships)
       .innerJoin(users, eq(users.id, memberships.userId))
-      .where(and(eq(memberships.teamId, teamId), eq(users.email, input.email)))
+      .where(and(eq(memberships.teamId, input.teamId), eq(users.email, input.email)))
       .limit(1);
     if (existing) throw errors.conflict(`${input.email} is already a member of this team.`);
     const made = await insertInvitation(tx, {
-      teamId,
+      teamId: input.teamId,
       email: input.email,
       role: input.role,
-      invitedBy: { id: actor.user.id, name: actor.user.displayName },
-    });
-    await recordAudit(tx, {
-      action: 'invitation.created',
-      actor: actor.user,
-      meta,
-      detail: { teamId, invitationId: made.row.id, email: input.email, role: input.role },
+      invitedBy: { id: ctx.actor.user.id, name: ctx.actor.user.displayName },
     });
     return { ...made, teamName: team.name };
   });
-  await mailInvitation(deps, { row, secret, teamName, inviterName: actor.user.displayName });
+  await deliverInvitation(ctx, { invitation: row, secret, teamName });
   return toInvitation(row);
 }
 
 /** Withdraws an open or accepted invitation record of this team. */
 export async function revokeInvitation(
-  deps: AppDeps,
-  actor: Principal,
-  teamId: string,
-  invitationId: string,
-  meta: RequestMeta,
+  ctx: ActorContext,
+  input: { teamId: string; invitationId: string },
 ): Promise<void> {
-  await deps.db.transaction(async (tx) => {
+  await ctx.db.transaction(async (tx) => {
     const [row] = await tx
       .delete(invitations)
-      .where(and(eq(invitations.id, invitationId), eq(invitations.teamId, teamId)))
+      .where(and(eq(invitations.id, input.invitationId), eq(invitations.teamId, input.teamId)))
       .returning({ id: invitations.id, email: invitations.email });
     if (!row) throw errors.notFound('The invitation');
     await recordAudit(tx, {
       action: 'invitation.revoked',
-      actor: actor.user,
-      meta,
-      detail: { teamId, invitationId, email: row.email },
+      actor: ctx.actor.user,
+      meta: ctx.meta,
+      detail: { teamId: input.teamId, invitationId: input.invitationId, email: row.email },
     });
   });
 }
@@ -171,9 +161,9 @@ async function findUsable(exec: Executor, secret: string) {
 }
 
 /** What the invitee sees before accepting. */
-export async function previewInvitation(deps: AppDeps, secret: string): Promise<InvitationPreview> {
-  const { invitation, teamName } = await findUsable(deps.db, secret);
-  const account = await findUserByEmail(deps.db, invitation.email);
+export async function previewInvitation(ctx: ServiceContext, input: { token: string }): Promise<InvitationPreview> {
+  const { invitation, teamName } = await findUsable(ctx.db, input.token);
+  const account = await findUserByEmail(ctx.db, invitation.email);
   return {
     teamName,
     email: invitation.email,
@@ -189,21 +179,19 @@ export async function previewInvitation(deps: AppDeps, secret: string): Promise<
  * signed in with a fresh session (returned for the cookie).
  */
 export async function acceptInvitation(
-  deps: AppDeps,
-  secret: string,
-  input: AcceptInvitationInput,
-  principal: Principal | null,
-  meta: RequestMeta,
+  ctx: ServiceContext,
+  input: AcceptInvitationInput & { token: string },
 ): Promise<{ principal: Principal; session: NewSession }> {
-  const { invitation } = await findUsable(deps.db, secret);
-  const account = await findUserByEmail(deps.db, invitation.email);
+  const { db, actor, meta } = ctx;
+  const { invitation } = await findUsable(db, input.token);
+  const account = await findUserByEmail(db, invitation.email);
   let passwordHash: string | null = null;
   if (account) {
-    if (!principal) throw new AppError('unauthenticated', `Sign in as ${invitation.email} to accept this invitation.`);
-    if (principal.user.id !== account.id) {
+    if (!actor) throw new AppError('unauthenticated', `Sign in as ${invitation.email} to accept this invitation.`);
+    if (actor.user.id !== account.id) {
       throw new AppError(
         'forbidden',
-        `This invitation is for ${invitation.email}; you are signed in as ${principal.user.email}.`,
+        `This invitation is for ${invitation.email}; you are signed in as ${actor.user.email}.`,
       );
     }
   } else {
@@ -212,7 +200,7 @@ export async function acceptInvitation(
     passwordHash = await hashPassword(input.password); // outside the transaction: it is slow
   }
 
-  return deps.db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
     // Claiming with "accepted_at is null" keeps the link single-use under concurrent clicks.
     const [claimed] = await tx
       .update(invitations)
@@ -236,10 +224,10 @@ export async function acceptInvitation(
       .insert(memberships)
       .values({ teamId: invitation.teamId, userId: user.id, role: invitation.role })
       .onConflictDoUpdate({ target: [memberships.teamId, memberships.userId], set: { role: invitation.role } });
-    if (principal?.sessionId) {
-      await tx.delete(sessions).where(eq(sessions.id, principal.sessionId));
+    if (actor?.sessionId) {
+      await tx.delete(sessions).where(eq(sessions.id, actor.sessionId));
     }
-    const session = await createSession(tx, user.id, meta, deps.config);
+    const session = await insertSession(tx, user.id, meta, ctx.config);
     await recordAudit(tx, {
       action: 'invitation.accepted',
       actor: user,

@@ -12,8 +12,7 @@ import type {
   LibraryImportInput,
   LibraryImportResult,
 } from '@shared/schemas/library';
-import type { Principal, RequestMeta } from '../context';
-import type { Db } from '../db/client';
+import type { ActorContext, ServiceContext } from '../context';
 import {
   libraryModels,
   libraryRevisions,
@@ -27,7 +26,7 @@ import { AppError, errors } from '../errors';
 import { applyLibrarySet, SetConflictError } from '../library/apply-set';
 import { setRevisionDetail, withNewRevision } from '../library/revisions';
 import { readLibrarySet, type SetProblem } from '../library/seed-set';
-import { recordAudit } from './audit.service';
+import { recordAudit } from '../db/queries/audit';
 import { presentModel, presentSource, presentValue, sourceOf, summarize } from '../library/present';
 import { elementsOfHill, speciesIndexOf } from '../library/search';
 import type { LibraryCache, LibrarySnapshot, SpeciesEntry } from '../library/snapshot';
@@ -68,8 +67,8 @@ function keep(summary: SpeciesSummary, query: SpeciesQuery): boolean {
  * Species of the library, searched (names, synonyms, formulas, CAS RN, InChIKey), filtered and
  * paged. With a query and the default sort, hits come in search rank; otherwise by the sort asked.
  */
-export async function listSpecies(library: LibraryCache, query: SpeciesQuery): Promise<SpeciesList> {
-  const snapshot = await snapshotFor(library, query.revision);
+export async function listSpecies(ctx: ServiceContext, query: SpeciesQuery): Promise<SpeciesList> {
+  const snapshot = await snapshotFor(ctx.library, query.revision);
   const elements = query.element?.split(',') ?? [];
   let matched: SpeciesEntry[];
   let readings: string[] | undefined;
@@ -134,7 +133,11 @@ function disagreements(values: SpeciesDetail['values']): SpeciesDetail['disagree
 const propertyWords: Record<LibraryProperty | 'cp', string> = { dfH298: 'ΔfH°', S298: 'S°', cp: 'heat-capacity model' };
 
 /** What changed for one species, revision by revision (every row ever written for it). */
-async function historyOf(db: Db, snapshot: LibrarySnapshot, speciesId: string): Promise<SpeciesDetail['history']> {
+async function historyOf(
+  db: ServiceContext['db'],
+  snapshot: LibrarySnapshot,
+  speciesId: string,
+): Promise<SpeciesDetail['history']> {
   const [speciesRows, valueRows, modelRows, selectionRows] = await Promise.all([
     db.select().from(librarySpecies).where(eq(librarySpecies.id, speciesId)),
     db.select().from(libraryValues).where(eq(libraryValues.speciesId, speciesId)),
@@ -203,12 +206,10 @@ async function historyOf(db: Db, snapshot: LibrarySnapshot, speciesId: string): 
 
 /** One species with every value, model and source at a revision, and its history up to it. */
 export async function getSpecies(
-  db: Db,
-  library: LibraryCache,
-  speciesId: string,
-  revision?: number,
+  ctx: ServiceContext,
+  { speciesId, revision }: { speciesId: string; revision?: number | undefined },
 ): Promise<SpeciesDetail> {
-  const snapshot = await snapshotFor(library, revision);
+  const snapshot = await snapshotFor(ctx.library, revision);
   const species = snapshot.species.get(speciesId);
   if (!species) throw errors.notFound(revision ? `The species at revision ${revision}` : 'The species');
   const values = (snapshot.values.get(species.id) ?? [])
@@ -226,14 +227,14 @@ export async function getSpecies(
     models,
     sourceDetails: [...sourceIds].map((id) => presentSource(sourceOf(snapshot, id))),
     disagreements: disagreements(values),
-    history: await historyOf(db, snapshot, species.id),
+    history: await historyOf(ctx.db, snapshot, species.id),
     libraryRevision: snapshot.revision,
   };
 }
 
 /** Every library revision, newest first. */
-export async function listRevisions(db: Db): Promise<RevisionList> {
-  const rows = await db
+export async function listRevisions(ctx: ServiceContext, _input: Record<string, never> = {}): Promise<RevisionList> {
+  const rows = await ctx.db
     .select({ revision: libraryRevisions, email: users.email })
     .from(libraryRevisions)
     .leftJoin(users, eq(users.id, libraryRevisions.createdBy))
@@ -257,21 +258,17 @@ export async function listRevisions(db: Db): Promise<RevisionList> {
  * new revision with an audit entry — or, with any problem, refused with every problem named
  * (file, line, column) and nothing written.
  */
-export async function importLibraryFiles(
-  db: Db,
-  actor: Principal,
-  meta: RequestMeta,
-  input: LibraryImportInput,
-): Promise<LibraryImportResult> {
+export async function importLibraryFiles(ctx: ActorContext, input: LibraryImportInput): Promise<LibraryImportResult> {
+  const actor = { id: ctx.actor.user.id, email: ctx.actor.user.email };
   const { set, problems } = readLibrarySet(input.files, { complete: false });
   if (problems.length > 0) throw importProblems(problems);
   try {
     const { number, result } = await withNewRevision(
-      db,
+      ctx.db,
       {
         kind: 'import',
         summary: input.summary,
-        actor: { id: actor.user.id, email: actor.user.email },
+        actor,
         detail: { files: input.files.map((f) => f.name) },
       },
       async (tx, number) => {
@@ -281,8 +278,8 @@ export async function importLibraryFiles(
         await setRevisionDetail(tx, number, { files: input.files.map((f) => f.name), counts });
         await recordAudit(tx, {
           action: 'library.imported',
-          actor: { id: actor.user.id, email: actor.user.email },
-          meta,
+          actor,
+          meta: ctx.meta,
           detail: { revision: number, counts, files: input.files.map((f) => f.name) },
         });
         return counts;

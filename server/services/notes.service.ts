@@ -1,9 +1,8 @@
 import { and, desc, eq } from 'drizzle-orm';
 import type { Note, NoteInput } from '@shared/schemas/notes';
-import type { Db } from '../db/client';
+import type { ActorContext, ServiceContext } from '../context';
 import { notes } from '../db/tables/index';
 import { errors } from '../errors';
-import type { Principal } from '../context';
 
 type NoteRow = typeof notes.$inferSelect;
 
@@ -20,18 +19,18 @@ function toNote(row: NoteRow): Note {
 }
 
 /** A team's notes, most recently changed first. */
-export async function listNotes(db: Db, teamId: string): Promise<Note[]> {
-  const rows = await db.select().from(notes).where(eq(notes.teamId, teamId)).orderBy(desc(notes.updatedAt));
-  return rows.map(toNote);
+export async function listNotes(ctx: ServiceContext, input: { teamId: string }): Promise<{ notes: Note[] }> {
+  const rows = await ctx.db.select().from(notes).where(eq(notes.teamId, input.teamId)).orderBy(desc(notes.updatedAt));
+  return { notes: rows.map(toNote) };
 }
 
-export async function createNote(db: Db, author: Principal, teamId: string, input: NoteInput): Promise<Note> {
-  const [row] = await db
+export async function createNote(ctx: ActorContext, input: NoteInput & { teamId: string }): Promise<Note> {
+  const [row] = await ctx.db
     .insert(notes)
     .values({
-      teamId,
-      authorId: author.user.id,
-      authorName: author.user.displayName,
+      teamId: input.teamId,
+      authorId: ctx.actor.user.id,
+      authorName: ctx.actor.user.displayName,
       title: input.title,
       body: input.body,
     })
@@ -40,20 +39,23 @@ export async function createNote(db: Db, author: Principal, teamId: string, inpu
 }
 
 /** Updates a note of this team (another team's note id is simply not found). */
-export async function updateNote(db: Db, teamId: string, noteId: string, input: NoteInput): Promise<Note> {
-  const [row] = await db
+export async function updateNote(
+  ctx: ActorContext,
+  input: NoteInput & { teamId: string; noteId: string },
+): Promise<Note> {
+  const [row] = await ctx.db
     .update(notes)
     .set({ title: input.title, body: input.body, updatedAt: new Date() })
-    .where(and(eq(notes.id, noteId), eq(notes.teamId, teamId)))
+    .where(and(eq(notes.id, input.noteId), eq(notes.teamId, input.teamId)))
     .returning();
   if (!row) throw errors.notFound('The note');
   return toNote(row);
 }
 
-export async function deleteNote(db: Db, teamId: string, noteId: string): Promise<void> {
-  const [row] = await db
+export async function deleteNote(ctx: ActorContext, input: { teamId: string; noteId: string }): Promise<void> {
+  const [row] = await ctx.db
     .delete(notes)
-    .where(and(eq(notes.id, noteId), eq(notes.teamId, teamId)))
+    .where(and(eq(notes.id, input.noteId), eq(notes.teamId, input.teamId)))
     .returning({ id: notes.id });
   if (!row) throw errors.notFound('The note');
 }

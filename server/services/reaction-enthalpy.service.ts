@@ -38,7 +38,7 @@ import {
   type ValueEntry,
 } from '../library/snapshot';
 import { snapshotFor } from './library.service';
-import type { LibraryCache } from '../library/snapshot';
+import type { ServiceContext } from '../context';
 
 /** A term of the reaction with the library entry it resolved to and the values used. */
 interface ResolvedTerm extends ReactionTerm {
@@ -287,10 +287,10 @@ function present(
  * ΔrG° and K where every species has S°. Per mole of reaction as written in the returned equation.
  */
 export async function evaluateReactionEnthalpy(
-  library: LibraryCache,
+  ctx: ServiceContext,
   input: ReactionEnthalpyInput,
 ): Promise<ReactionEnthalpyResult> {
-  const snapshot = await snapshotFor(library, input.revision);
+  const snapshot = await snapshotFor(ctx.library, input.revision);
   const reaction = readBalancedReaction(input.equation);
   const temperature = temperatureOf(input.temperature);
   const { resolved, warnings } = resolveTerms(snapshot, reaction.terms);
@@ -403,11 +403,8 @@ function quantityOf(amount: ReactionHeatInput['amounts'][number], term: Resolved
  * batch mass and heat capacity — a screening estimate of the adiabatic temperature rise with the
  * usual cautions.
  */
-export async function evaluateReactionHeat(
-  library: LibraryCache,
-  input: ReactionHeatInput,
-): Promise<ReactionHeatResult> {
-  const snapshot = await snapshotFor(library, input.revision);
+export async function evaluateReactionHeat(ctx: ServiceContext, input: ReactionHeatInput): Promise<ReactionHeatResult> {
+  const snapshot = await snapshotFor(ctx.library, input.revision);
   const reaction = readBalancedReaction(input.equation);
   const temperature = temperatureOf(input.temperature);
   const { resolved, warnings } = resolveTerms(snapshot, reaction.terms);

@@ -1,58 +1,24 @@
-import { and, eq, ne } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import type { SignInInput } from '@shared/schemas/session';
-import type { Db, Executor } from '../db/client';
+import type { Principal, ServiceContext } from '../context';
+import { recordAudit } from '../db/queries/audit';
+import { insertSession, type NewSession } from '../db/queries/credentials';
+import { findUserByEmail, toSessionUser } from '../db/queries/users';
 import { apiTokens, sessions, users } from '../db/tables/index';
-import type { AppConfig } from '../env';
 import { AppError } from '../errors';
-import type { Principal, RequestMeta } from '../context';
-import type { RateLimits } from '../middleware/rate-limit';
-import { API_TOKEN_PREFIX, burnPasswordCheck, hashSecret, randomSecret, verifyPassword } from '../lib/secrets';
-import { recordAudit } from './audit.service';
-import { findUserByEmail, toSessionUser } from './users.service';
+import { API_TOKEN_PREFIX, burnPasswordCheck, hashSecret, verifyPassword } from '../lib/secrets';
 
-/** Sessions are touched at most this often, so reads do not all turn into writes. */
+/** Sessions and tokens are touched at most this often, so reads do not all turn into writes. */
 const TOUCH_INTERVAL_MS = 60_000;
 
-export interface NewSession {
-  /** The cookie value; only its hash is stored. */
-  secret: string;
-  id: string;
-  expiresAt: Date;
-}
-
-/** Starts a session for a user; returns the secret for the cookie. */
-export async function createSession(
-  exec: Executor,
-  userId: string,
-  meta: RequestMeta,
-  config: Pick<AppConfig, 'session'>,
-): Promise<NewSession> {
-  const secret = randomSecret();
-  const expiresAt = new Date(Date.now() + config.session.ttlMs);
-  const [row] = await exec
-    .insert(sessions)
-    .values({
-      tokenHash: hashSecret(secret),
-      userId,
-      expiresAt,
-      ip: meta.ip,
-      userAgent: meta.userAgent?.slice(0, 300) ?? null,
-    })
-    .returning({ id: sessions.id });
-  return { secret, id: row!.id, expiresAt };
-}
-
 /** The principal for a session cookie, or null when it is unknown, expired, idle too long or its user disabled. */
-export async function resolveSession(
-  db: Db,
-  secret: string,
-  config: Pick<AppConfig, 'session'>,
-): Promise<Principal | null> {
+export async function resolveSession(ctx: ServiceContext, input: { secret: string }): Promise<Principal | null> {
+  const { db, config } = ctx;
   const [row] = await db
     .select({ session: sessions, user: users })
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
-    .where(eq(sessions.tokenHash, hashSecret(secret)))
+    .where(eq(sessions.tokenHash, hashSecret(input.secret)))
     .limit(1);
   if (!row) return null;
   const now = Date.now();
@@ -71,13 +37,14 @@ export async function resolveSession(
 }
 
 /** The principal for a Bearer API token, or null when it is unknown, expired or its user disabled. */
-export async function resolveApiToken(db: Db, secret: string): Promise<Principal | null> {
-  if (!secret.startsWith(API_TOKEN_PREFIX)) return null;
+export async function resolveApiToken(ctx: ServiceContext, input: { secret: string }): Promise<Principal | null> {
+  const { db } = ctx;
+  if (!input.secret.startsWith(API_TOKEN_PREFIX)) return null;
   const [row] = await db
     .select({ token: apiTokens, user: users })
     .from(apiTokens)
     .innerJoin(users, eq(users.id, apiTokens.userId))
-    .where(eq(apiTokens.tokenHash, hashSecret(secret)))
+    .where(eq(apiTokens.tokenHash, hashSecret(input.secret)))
     .limit(1);
   if (!row || row.user.disabled) return null;
   const now = Date.now();
@@ -95,25 +62,24 @@ export async function resolveApiToken(db: Db, secret: string): Promise<Principal
 export const INVALID_CREDENTIALS_MESSAGE = 'E-mail or password is wrong.';
 
 /**
- * Checks the password and opens a new session. Any session the request came with is ended
- * (a fresh id at every sign-in). Failures count against the account and the address.
+ * Checks the password and opens a new session. An attempt is reserved against the account's and
+ * the address's allowance before the password is checked and given back only on success, so
+ * parallel guesses cannot outrun the limit. Any session the request came with is ended (a fresh
+ * id at every sign-in).
  */
 export async function signIn(
-  deps: { db: Db; config: Pick<AppConfig, 'session'>; limits: RateLimits },
+  ctx: ServiceContext,
   input: SignInInput,
-  meta: RequestMeta,
-  previousSessionId: string | undefined,
 ): Promise<{ session: NewSession; principal: Principal }> {
-  const { db, limits } = deps;
-  const ip = meta.ip ?? 'unknown';
-  await limits.checkSignIn(input.email, ip);
+  const { db, limits, meta } = ctx;
+  const reservation = await limits.reserveSignIn(input.email, meta.ip ?? 'unknown');
   const user = await findUserByEmail(db, input.email);
   // Hashing happens outside any transaction: PGlite has one connection.
   const ok = user
     ? await verifyPassword(user.passwordHash, input.password)
     : (await burnPasswordCheck(input.password), false);
   if (!user || !ok || user.disabled) {
-    await limits.recordSignInFailure(input.email, ip);
+    reservation.failed();
     await recordAudit(db, {
       action: 'sign_in.failed',
       actor: user ? { id: user.id, email: user.email } : null,
@@ -123,35 +89,24 @@ export async function signIn(
     });
     throw new AppError('invalid_credentials', INVALID_CREDENTIALS_MESSAGE);
   }
-  await limits.recordSignInSuccess(input.email);
+  await reservation.succeeded();
+  const previousSessionId = ctx.actor?.via === 'session' ? ctx.actor.sessionId : undefined;
   const session = await db.transaction(async (tx) => {
     if (previousSessionId) await tx.delete(sessions).where(eq(sessions.id, previousSessionId));
-    const created = await createSession(tx, user.id, meta, deps.config);
+    const created = await insertSession(tx, user.id, meta, ctx.config);
     await recordAudit(tx, { action: 'sign_in.succeeded', actor: user, meta, detail: { sessionId: created.id } });
     return created;
   });
   return { session, principal: { user: toSessionUser(user), via: 'session', sessionId: session.id } };
 }
 
-/** Ends one session server-side. */
-export async function signOut(
-  db: Db,
-  principal: Principal | null,
-  sessionId: string | undefined,
-  meta: RequestMeta,
-): Promise<void> {
-  if (!sessionId) return;
-  await db.transaction(async (tx) => {
+/** Ends the caller's session server-side (nothing to do for tokens or anonymous callers). */
+export async function signOut(ctx: ServiceContext, _input: object = {}): Promise<void> {
+  const actor = ctx.actor;
+  const sessionId = actor?.via === 'session' ? actor.sessionId : undefined;
+  if (!actor || !sessionId) return;
+  await ctx.db.transaction(async (tx) => {
     await tx.delete(sessions).where(eq(sessions.id, sessionId));
-    if (principal) await recordAudit(tx, { action: 'sign_out', actor: principal.user, meta, detail: { sessionId } });
+    await recordAudit(tx, { action: 'sign_out', actor: actor.user, meta: ctx.meta, detail: { sessionId } });
   });
-}
-
-/** Ends every session of a user, except `keepSessionId` when given. */
-export async function endUserSessions(exec: Executor, userId: string, keepSessionId?: string): Promise<void> {
-  await exec
-    .delete(sessions)
-    .where(
-      keepSessionId ? and(eq(sessions.userId, userId), ne(sessions.id, keepSessionId)) : eq(sessions.userId, userId),
-    );
 }

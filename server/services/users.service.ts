@@ -1,37 +1,16 @@
-import { asc, eq } from 'drizzle-orm';
-import type { SessionInfo, SessionUser, TeamMembership } from '@shared/schemas/session';
-import type { Executor } from '../db/client';
-import { memberships, teams, users, type UserRow } from '../db/tables/index';
-import type { Principal } from '../context';
+import type { SessionInfo } from '@shared/schemas/session';
+import type { Principal, ServiceContext } from '../context';
+import { listMemberships } from '../db/queries/users';
 
-/** The public face of a user row. */
-export function toSessionUser(row: Pick<UserRow, 'id' | 'email' | 'displayName' | 'siteRoles'>): SessionUser {
-  return { id: row.id, email: row.email, displayName: row.displayName, siteRoles: [...row.siteRoles].sort() };
-}
-
-export async function findUserByEmail(exec: Executor, email: string): Promise<UserRow | undefined> {
-  const [row] = await exec.select().from(users).where(eq(users.email, email.trim().toLowerCase())).limit(1);
-  return row;
-}
-
-export async function findUserById(exec: Executor, id: string): Promise<UserRow | undefined> {
-  const [row] = await exec.select().from(users).where(eq(users.id, id)).limit(1);
-  return row;
-}
-
-/** The teams a user belongs to, by name. */
-export async function listMemberships(exec: Executor, userId: string): Promise<TeamMembership[]> {
-  const rows = await exec
-    .select({ id: teams.id, name: teams.name, slug: teams.slug, role: memberships.role })
-    .from(memberships)
-    .innerJoin(teams, eq(teams.id, memberships.teamId))
-    .where(eq(memberships.userId, userId))
-    .orderBy(asc(teams.name));
-  return rows;
-}
-
-/** The reply of GET /session and friends. */
-export async function sessionInfoFor(exec: Executor, principal: Principal | null): Promise<SessionInfo> {
+/**
+ * Who is signed in, with their teams (the reply of GET /session and friends). `principal`
+ * defaults to the caller; sign-in and invitation acceptance pass the one they just created.
+ */
+export async function sessionInfo(
+  ctx: ServiceContext,
+  input: { principal?: Principal | null } = {},
+): Promise<SessionInfo> {
+  const principal = input.principal === undefined ? ctx.actor : input.principal;
   if (!principal) return { user: null, teams: [], via: 'none' };
-  return { user: principal.user, teams: await listMemberships(exec, principal.user.id), via: principal.via };
+  return { user: principal.user, teams: await listMemberships(ctx.db, principal.user.id), via: principal.via };
 }

@@ -1,43 +1,124 @@
-import type { BalanceInput, BalanceResult } from '../schemas/balance';
+/**
+ * The balancer: from a parsed equation to a `Balancing` (the core's own answer; the API reply is
+ * built from it by `balance-reply.ts`). The work is split into named steps, run in this order by
+ * `balanceEquation`:
+ *
+ * 1. `readBalanceRequest`: check the fixed coefficients and the term to normalise to.
+ * 2. `compositionMatrix` and `conserves`: the conservation equations; do the typed coefficients balance?
+ * 3. `integerNullspace`: every balancing (exact, in free-column form).
+ * 4. `findPositiveBalancing`: is there a balancing with every coefficient positive, and if not, why?
+ * 5. `chooseWithFixed` or `chooseAnswer`: the answer (as typed, smallest whole numbers, or fixed).
+ * 6. `normalised` and `carriedEnthalpy`: rescale to 1 mol of a term; carry ΔH when proportional.
+ * 7. `listedBasis`: the basis cut to the work limit.
+ */
 import { findPositiveCombination } from './cone';
-import { elementName } from './elements';
-import { elementBalanceTable } from './element-table';
+import { compositionMatrix, conserves, matrixTotals, type CompositionMatrix } from './composition-matrix';
+import { elementTotals } from './element-table';
 import { BalanceInputError } from './errors';
-import { formatEquation } from './format';
+import { DEFAULT_WORK_LIMITS, resolveWorkLimits } from './limits';
+import { impossibleMessages, requestMessages, termLabel, warningMessages, type ChargeSigns } from './messages';
 import { integerNullspace, primitive, type Nullspace } from './nullspace';
-import { parseEquation } from './parse';
-import { div, lcm, mul, parseRational, rat, ratText, ratToNumber, type Rat } from './rational';
-import type { EnthalpyValue, ParsedEquation, ParseWarning, SpeciesTerm } from './types';
+import { parseEquation, type ParseOptions } from './parse';
+import { div, eq, mul, parseRational, rat, ratText, ratToNumber, type Rat } from './rational';
+import type {
+  BalanceStatus,
+  Balancing,
+  EnthalpyValue,
+  ImpossibleReason,
+  ParsedEquation,
+  ParseWarning,
+  SpeciesTerm,
+} from './types';
 
-/** Options of a balancing request (see `BalanceInput`). */
-export interface BalanceOptions {
-  /** Coefficients to hold, keyed by term index (from 0, input order), as exact fraction text. */
-  fixed?: Record<string, string>;
-  /** Term index whose coefficient becomes 1. */
+/** Options of a balancing request (the API's `fixed` and `normaliseTo`), plus work limits. */
+export interface BalanceOptions extends ParseOptions {
+  /** Coefficients to hold, keyed by term index (from 0, input order), as exact text ("2", "1/2", "0.5"). */
+  fixed?: Readonly<Record<string, string>>;
+  /** Term index whose coefficient becomes 1 (the others follow as exact fractions). */
   normaliseTo?: number;
 }
 
 /**
- * Parses and balances an equation (what `POST /api/v1/balance` returns).
+ * Parses and balances an equation; see `balanceEquation` for the outcomes.
+ * @throws EquationParseError for unreadable text; WorkLimitError over a work limit;
+ *   BalanceInputError as `balanceEquation`.
+ */
+export function balanceEquationText(text: string, options: BalanceOptions = {}): Balancing {
+  return balanceEquation(parseEquation(text, options), options);
+}
+
+/**
+ * Balances a parsed equation.
  *
  * - Coefficients as typed balance → `balanced`, `asGiven: true` (coefficients kept as typed).
  * - Exactly one balancing up to scale → `balanced` with the smallest whole numbers.
- * - Several independent balancings → `multiple` with `dimension` and an integer `basis`
- *   (one vector per independent balancing, term order, positive = on the side written), and an
- *   example with all coefficients positive in `terms`; `fixed` picks one.
- * - None with all coefficients positive → `impossible` with `reason` in words.
- * - Coefficients as typed that do not balance → `givenImbalance` (every element row and the charge).
+ * - Several independent balancings → `multiple` with `dimension` and an integer `basis` (one
+ *   vector per independent balancing, term order, positive = on the side written; at most
+ *   `limits.maxBasisVectors` of them, `basisTruncated` and a warning saying when cut) and an
+ *   example with all coefficients positive in `equation`; `fixed` picks one.
+ * - None with all coefficients positive → `impossible` with the reason as data and in words.
  * `normaliseTo` rescales the answer so that term's coefficient is 1 (fractions such as 1/2 O2).
- * ΔH (kJ/mol, per mole of reaction as written) is returned in `enthalpy` only when the answer is a
- * multiple of the equation as typed, scaled by the same factor; otherwise a warning says it was dropped.
+ * ΔH (kJ/mol, per mole of reaction as written) is carried into `equation.enthalpy` only when the
+ * answer is a multiple of the equation as typed, scaled by the same factor; otherwise a warning
+ * says it was dropped.
  *
- * @throws EquationParseError for unreadable text.
- * @throws BalanceInputError (field "fixed.<index>" or "normaliseTo") for a bad index, a zero or
- *   negative fixed coefficient, or fixed coefficients no balancing can have.
+ * @throws BalanceInputError (field "fixed.<index>", "normaliseTo" or "equation") for a bad index,
+ *   a zero or negative fixed coefficient, fixed coefficients no balancing can have, or a ΔH that
+ *   would leave the range of numbers when scaled.
  */
-export function balanceEquationText(input: BalanceInput): BalanceResult {
-  return balanceParsedEquation(parseEquation(input.equation), input);
+export function balanceEquation(reading: ParsedEquation, options: BalanceOptions = {}): Balancing {
+  const limits = options.limits === undefined ? DEFAULT_WORK_LIMITS : resolveWorkLimits(options.limits);
+  const terms = reading.terms;
+  const request = readBalanceRequest(terms.length, options);
+  const matrix = compositionMatrix(terms);
+  const given = terms.map((t) => t.coefficient);
+  const asGiven = conserves(matrix, given);
+  const kernel = integerNullspace(matrix.rows, matrix.cols);
+
+  const verdict = findPositiveBalancing(matrix, kernel, terms);
+  const impossible = 'impossible' in verdict ? verdict.impossible : null;
+  const answer: Answer =
+    'impossible' in verdict
+      ? { status: 'impossible', coefficients: null, dimension: kernel.basis.length, basis: verdict.basis }
+      : request.fixed.length > 0
+        ? chooseWithFixed(matrix, terms, request.fixed)
+        : chooseAnswer(kernel, verdict.example, asGiven, given);
+
+  const warnings: ParseWarning[] = [];
+  const coefficients = answer.coefficients ? normalised(answer.coefficients, request.normaliseTo) : given;
+  const enthalpy =
+    answer.coefficients && reading.enthalpy
+      ? carriedEnthalpy(reading.enthalpy, given, coefficients, asGiven, request, warnings)
+      : null;
+  if (answer.status === 'balanced' && asGiven && answer.basis.length > 0) {
+    warnings.push({ code: 'other_balancings', message: warningMessages.otherBalancings(answer.basis.length) });
+  }
+  const { basis, truncated } = listedBasis(answer.basis, limits.maxBasisVectors, warnings);
+
+  return {
+    status: answer.status,
+    reading,
+    equation: {
+      terms: terms.map((t, j) => ({
+        species: t.species,
+        side: t.side,
+        coefficient: coefficients[j]!,
+        coefficientWritten: true,
+      })),
+      enthalpy,
+      equilibrium: reading.equilibrium,
+    },
+    asGiven,
+    givenTotals: asGiven ? null : (matrixTotals(matrix, terms, given) ?? elementTotals(terms)),
+    dimension: answer.dimension,
+    basis,
+    basisTruncated: truncated,
+    impossible,
+    warnings,
+  };
 }
+
+// ----- 1. The request -------------------------------------------------------------------------
 
 interface FixedValue {
   index: number;
@@ -45,127 +126,125 @@ interface FixedValue {
   value: Rat;
 }
 
-function readOptions(n: number, options: BalanceOptions): { fixed: FixedValue[]; normaliseTo: number | undefined } {
+interface BalanceRequest {
+  fixed: FixedValue[];
+  normaliseTo: number | undefined;
+  /** The request field a ΔH overflow is blamed on. */
+  scalingField: string;
+}
+
+/** Checks `fixed` and `normaliseTo` against the number of terms. */
+export function readBalanceRequest(n: number, options: BalanceOptions): BalanceRequest {
   const fixed: FixedValue[] = [];
   for (const [key, text] of Object.entries(options.fixed ?? {})) {
     const field = `fixed.${key}`;
-    if (!/^\d+$/.test(key)) throw new BalanceInputError(`Term index '${key}' is not a whole number from 0.`, field);
+    if (!/^\d+$/.test(key)) throw new BalanceInputError(requestMessages.termIndexNotWhole(key), field);
     const index = Number(key);
-    if (index >= n)
-      throw new BalanceInputError(`There is no term ${index}: the equation has terms 0 to ${n - 1}.`, field);
+    if (index >= n) throw new BalanceInputError(requestMessages.noSuchTerm(index, n), field);
     const value = parseRational(String(text));
-    if (value === null) throw new BalanceInputError(`'${text}' is not an exact number such as 2, 1/2 or 0.5.`, field);
-    if (value.n === 0n) throw new BalanceInputError(`A coefficient cannot be zero (term ${index}).`, field);
-    if (value.n < 0n)
-      throw new BalanceInputError(
-        `A coefficient must be positive (term ${index}); move the species to the other side instead.`,
-        field,
-      );
+    if (value === null) throw new BalanceInputError(requestMessages.notExact(String(text)), field);
+    if (value.n === 0n) throw new BalanceInputError(requestMessages.fixedZero(index), field);
+    if (value.n < 0n) throw new BalanceInputError(requestMessages.fixedNegative(index), field);
     fixed.push({ index, key, value });
   }
   fixed.sort((a, b) => a.index - b.index);
   const normaliseTo = options.normaliseTo;
   if (normaliseTo !== undefined && (!Number.isInteger(normaliseTo) || normaliseTo < 0 || normaliseTo >= n)) {
-    throw new BalanceInputError(
-      `There is no term ${normaliseTo}: the equation has terms 0 to ${n - 1}.`,
-      'normaliseTo',
-    );
+    throw new BalanceInputError(requestMessages.noSuchTerm(normaliseTo, n), 'normaliseTo');
   }
-  return { fixed, normaliseTo };
+  const scalingField =
+    normaliseTo !== undefined ? 'normaliseTo' : fixed.length > 0 ? `fixed.${fixed[0]!.key}` : 'equation';
+  return { fixed, normaliseTo, scalingField };
 }
 
-function label(symbol: string): string {
-  const name = elementName(symbol);
-  return name ? `${name} (${symbol})` : symbol;
+// ----- 4. Is there a positive balancing? ------------------------------------------------------
+
+function label(terms: readonly SpeciesTerm[], j: number): string {
+  return termLabel(terms[j]!.species.formula, terms[j]!.species.phase, j);
 }
 
-function speciesLabel(t: SpeciesTerm, index: number): string {
-  return `${t.species.formula}${t.species.phase ? `(${t.species.phase})` : ''} (term ${index})`;
+function chargeSigns(terms: readonly SpeciesTerm[], side: 'reactant' | 'product'): ChargeSigns {
+  const charged = terms.find((t) => t.side === side && t.species.charge !== 0);
+  return charged === undefined ? 'none' : charged.species.charge > 0 ? 'positive' : 'negative';
 }
 
-function listWords(words: string[]): string {
-  return words.length <= 1 ? (words[0] ?? '') : `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
-}
-
-/** Whether Σ_j a_ij g_j = 0 for every row, exactly (numbers when safe, else BigInt). */
-function balancesExactly(rows: number[][], given: Rat[]): boolean {
-  if (given.every((g) => g.d === 1n && g.n < 1_000_000_000n)) {
-    const g = given.map((x) => Number(x.n));
-    // |a| and g below 1e9 each, at most a few hundred terms: sums stay exact in doubles.
-    if (rows.every((row) => row.every((a) => Math.abs(a) < 1e6))) {
-      return rows.every((row) => row.reduce((sum, a, j) => sum + a * g[j]!, 0) === 0);
-    }
+/** Whether a row has positive and negative entries (numbers or BigInts). */
+function signsOf(row: ReadonlyArray<number> | ReadonlyArray<bigint>): { positive: boolean; negative: boolean } {
+  let positive = false;
+  let negative = false;
+  for (const v of row) {
+    if (v > 0) positive = true;
+    else if (v < 0) negative = true;
   }
-  let den = 1n;
-  for (const x of given) den = lcm(den, x.d);
-  const ints = given.map((x) => (x.n * den) / x.d);
-  return rows.every((row) => row.reduce((sum, a, j) => sum + BigInt(a) * ints[j]!, 0n) === 0n);
+  return { positive, negative };
+}
+
+type Verdict = { example: bigint[] } | { impossible: ImpossibleReason; basis: bigint[][] };
+
+/**
+ * A balancing with every coefficient positive, or why none exists. Checks, in order: an element
+ * or the charge on one side only; only the zero solution; a term that is 0 in every balancing;
+ * then looks for a positive combination of the basis (exact simplex, `cone.ts`).
+ */
+export function findPositiveBalancing(
+  matrix: CompositionMatrix,
+  kernel: Nullspace,
+  terms: readonly SpeciesTerm[],
+): Verdict {
+  const k = kernel.basis.length;
+  const elements: Array<{ element: string; side: 'reactant' | 'product' }> = [];
+  let charge: { reactants: ChargeSigns; products: ChargeSigns } | null = null;
+  for (let r = 0; r < matrix.keys.length; r++) {
+    const { positive, negative } = signsOf(matrix.rows[r]!);
+    if (positive === negative) continue;
+    const key = matrix.keys[r]!;
+    if (key === 'charge')
+      charge = { reactants: chargeSigns(terms, 'reactant'), products: chargeSigns(terms, 'product') };
+    else elements.push({ element: key, side: positive ? 'reactant' : 'product' });
+  }
+  if (elements.length > 0 || charge !== null) {
+    const sentences = elements.map((e) => impossibleMessages.elementOnOneSide(e.element, e.side));
+    const c = charge as { reactants: ChargeSigns; products: ChargeSigns } | null;
+    if (c) sentences.push(impossibleMessages.chargeOnOneSide(c.reactants, c.products));
+    return { impossible: { kind: 'one_side', elements, charge: c, message: sentences.join(' ') }, basis: kernel.basis };
+  }
+  if (k === 0) {
+    return {
+      impossible: { kind: 'only_zero', conserved: matrix.keys, message: impossibleMessages.onlyZero(matrix.keys) },
+      basis: [],
+    };
+  }
+  const vanish: number[] = [];
+  for (let j = 0; j < terms.length; j++) if (kernel.basis.every((b) => b[j] === 0n)) vanish.push(j);
+  if (vanish.length > 0) {
+    const message = impossibleMessages.mustVanish(vanish.map((j) => label(terms, j)));
+    return { impossible: { kind: 'must_vanish', terms: vanish, message }, basis: kernel.basis };
+  }
+  const example = positiveExample(kernel);
+  if (example !== null) return { example };
+  if (k === 1) {
+    const v = kernel.basis[0]!;
+    const positives = v.filter((x) => x > 0n).length;
+    const oriented = positives * 2 >= v.length ? v : v.map((x) => -x);
+    const flip = terms.map((_, j) => j).filter((j) => oriented[j]! < 0n);
+    const message = impossibleMessages.mustChangeSide(flip.map((j) => label(terms, j)));
+    return { impossible: { kind: 'must_change_side', terms: flip, message }, basis: kernel.basis };
+  }
+  return {
+    impossible: { kind: 'no_positive_balancing', message: impossibleMessages.noPositiveBalancing() },
+    basis: kernel.basis,
+  };
 }
 
 /**
- * The per-element table of the coefficients as typed, read off the composition matrix (same rows
- * as `elementBalanceTable`, which it falls back to for fractional coefficients).
+ * A balancing with every coefficient positive (primitive integers), or null if none exists. The
+ * basis is in free-column form, so with x = Σ c_f b_f the free entries are positive multiples of
+ * c_f and the search is a small exact LP on the pivot rows.
  */
-function givenTable(
-  keys: string[],
-  rows: number[][],
-  terms: SpeciesTerm[],
-  given: Rat[],
-): BalanceResult['givenImbalance'] {
-  if (!given.every((g) => g.d === 1n && g.n < 1_000_000n)) {
-    return elementBalanceTable(
-      terms.map((t) => ({
-        composition: t.species.composition,
-        charge: t.species.charge,
-        side: t.side,
-        coefficient: t.coefficient,
-      })),
-    );
-  }
-  const g = given.map((x) => Number(x.n));
-  return keys.map((element, r) => {
-    let reactants = 0;
-    let products = 0;
-    const row = rows[r]!;
-    for (let j = 0; j < row.length; j++) {
-      // Products were entered with the opposite sign.
-      if (terms[j]!.side === 'reactant') reactants += row[j]! * g[j]!;
-      else products -= row[j]! * g[j]!;
-    }
-    return { element, reactants: String(reactants), products: String(products) };
-  });
-}
-
-/** Reasons that need no algebra: an element or the charge that sits on one side only. */
-function oneSideReasons(keys: string[], rows: number[][], terms: SpeciesTerm[]): string[] {
-  const reasons: string[] = [];
-  keys.forEach((key, r) => {
-    const row = rows[r]!;
-    const hasPos = row.some((v) => v > 0);
-    const hasNeg = row.some((v) => v < 0);
-    if (hasPos === hasNeg) return;
-    if (key === 'charge') {
-      const side = (s: 'reactant' | 'product'): string => {
-        const qs = terms.filter((t) => t.side === s && t.species.charge !== 0).map((t) => t.species.charge);
-        if (qs.length === 0) return `the ${s}s carry no charge`;
-        return `the ${s}s carry only ${qs[0]! > 0 ? 'positive' : 'negative'} charge`;
-      };
-      reasons.push(`The charge cannot balance: ${side('reactant')} and ${side('product')}.`);
-    } else {
-      reasons.push(`${label(key)} appears only among the ${hasPos ? 'reactants' : 'products'}, so it cannot balance.`);
-    }
-  });
-  return reasons;
-}
-
-/**
- * Positive example in the span of a kernel basis (primitive integers), or null if none exists.
- * The basis is in free-column form (see `integerNullspace`), so with x = Σ c_f b_f the free
- * entries are positive multiples of c_f and the search is a small exact LP on the pivot rows.
- */
-function positiveExample(ns: Nullspace, n: number): bigint[] | null {
-  const { basis } = ns;
+export function positiveExample(kernel: Nullspace): bigint[] | null {
+  const { basis } = kernel;
   if (basis.length === 0) return null;
+  const n = basis[0]!.length;
   if (basis.length === 1) {
     const v = basis[0]!;
     if (v.every((x) => x > 0n)) return v;
@@ -176,7 +255,7 @@ function positiveExample(ns: Nullspace, n: number): bigint[] | null {
   const sum = new Array<bigint>(n).fill(0n);
   for (const b of basis) for (let j = 0; j < n; j++) sum[j]! += b[j]!;
   if (sum.every((x) => x > 0n)) return primitive(sum);
-  const pivotRows = ns.pivots.map((p) => basis.map((b) => b[p]!));
+  const pivotRows = kernel.pivots.map((p) => basis.map((b) => b[p]!));
   const c = findPositiveCombination(pivotRows, basis.length);
   if (c === null) return null;
   const x = new Array<bigint>(n).fill(0n);
@@ -186,241 +265,138 @@ function positiveExample(ns: Nullspace, n: number): bigint[] | null {
   return primitive(x);
 }
 
-interface Solved {
-  status: 'balanced' | 'multiple';
+// ----- 5. The answer --------------------------------------------------------------------------
+
+interface Answer {
+  status: BalanceStatus;
+  /** The coefficients found (null: keep those as typed). */
   coefficients: Rat[] | null;
   dimension: number;
-  basis?: bigint[][];
-  warnings: ParseWarning[];
+  /** Every independent balancing (cut to the limit later). */
+  basis: bigint[][];
 }
 
-/** Chooses among several balancings with the user's fixed coefficients (homogenised with t). */
-function solveFixed(rows: number[][], terms: SpeciesTerm[], fixed: FixedValue[]): Solved {
-  const n = terms.length;
-  const aug = rows.map((r) => [...r, 0]);
-  let kernel: bigint[][] = [];
-  let kernelNs: Nullspace | null = null;
-  for (let f = 0; f < fixed.length; f++) {
-    const { index, key, value } = fixed[f]!;
-    const row = new Array<number>(n + 1).fill(0);
-    row[index] = Number(value.d);
-    row[n] = -Number(value.n);
-    if (!Number.isSafeInteger(row[index]) || !Number.isSafeInteger(row[n])) {
-      throw new BalanceInputError(`The coefficient for term ${index} is too large.`, `fixed.${key}`);
-    }
-    aug.push(row);
-    const kns = integerNullspace(aug, n + 1);
-    kernelNs = kns;
-    kernel = kns.basis;
-    const field = `fixed.${key}`;
-    const withT = kernel.filter((v) => v[n] !== 0n);
-    const others = fixed.slice(0, f).map((o) => `term ${o.index} = ${ratText(o.value)}`);
-    const context = others.length ? ` together with ${listWords(others)}` : '';
-    if (withT.length === 0) {
-      throw new BalanceInputError(
-        `No balancing has coefficient ${ratText(value)} for ${speciesLabel(terms[index]!, index)}${context}.`,
-        field,
-      );
-    }
-    const positive = positiveExample(kns, n + 1);
-    if (positive === null) {
-      throw new BalanceInputError(
-        `With coefficient ${ratText(value)} for ${speciesLabel(terms[index]!, index)}${context}, some other coefficient would have to be zero or negative.`,
-        field,
-      );
-    }
-  }
-  // Directions that keep the fixed values: kernel vectors with t = 0 after eliminating t.
-  const pivot = kernel.find((v) => v[n] !== 0n)!;
-  const free = kernel
-    .filter((v) => v !== pivot)
-    .map((v) => primitive(v.map((x, j) => x * pivot[n]! - pivot[j]! * v[n]!)).slice(0, n));
-  const example = positiveExample(kernelNs!, n + 1);
-  const scaleToT = (v: bigint[]): Rat[] => v.slice(0, n).map((x) => rat(x, v[n]!));
-  if (free.length === 0) {
-    return {
-      status: 'balanced',
-      coefficients: scaleToT(pivot[n]! < 0n ? pivot.map((x) => -x) : pivot),
-      dimension: 0,
-      warnings: [],
-    };
-  }
-  return {
-    status: 'multiple',
-    coefficients: example ? scaleToT(example) : null,
-    dimension: free.length,
-    basis: free,
-    warnings: [],
-  };
+/** Without fixed coefficients: as typed when they balance, else the smallest whole numbers or an example. */
+function chooseAnswer(kernel: Nullspace, example: bigint[], asGiven: boolean, given: Rat[]): Answer {
+  const k = kernel.basis.length;
+  if (k === 1)
+    return { status: 'balanced', coefficients: asGiven ? given : wholeNumbers(example), dimension: 1, basis: [] };
+  if (asGiven) return { status: 'balanced', coefficients: given, dimension: k, basis: kernel.basis };
+  return { status: 'multiple', coefficients: wholeNumbers(example), dimension: k, basis: kernel.basis };
+}
+
+function wholeNumbers(v: readonly bigint[]): Rat[] {
+  return v.map((x) => rat(x));
+}
+
+/** A homogenised vector (last entry t) as the coefficients x / t. */
+function scaledToT(v: readonly bigint[], n: number): Rat[] {
+  return v.slice(0, n).map((x) => rat(x, v[n]!));
 }
 
 /**
- * Balances an already parsed equation; see `balanceEquationText` for the outcomes.
- * @throws BalanceInputError as `balanceEquationText`.
+ * With fixed coefficients: each fixed value x_i = p/q adds the row q·x_i − p·t = 0 (homogenised
+ * with t); balancings with t ≠ 0 keep the fixed values. Checked one value at a time, so the
+ * refusal names the first value no balancing (or no positive one) can have.
  */
-export function balanceParsedEquation(parsed: ParsedEquation, options: BalanceOptions = {}): BalanceResult {
-  const terms = parsed.terms;
+export function chooseWithFixed(
+  matrix: CompositionMatrix,
+  terms: readonly SpeciesTerm[],
+  fixed: readonly FixedValue[],
+): Answer {
   const n = terms.length;
-  const { fixed, normaliseTo } = readOptions(n, options);
-  const warnings: ParseWarning[] = [...parsed.warnings];
-
-  // Composition matrix: one row per element (first appearance) and the charge; products negative.
-  const index = new Map<string, number>();
-  const rows: number[][] = [];
-  const keys: string[] = [];
-  const rowFor = (key: string): number[] => {
-    let r = index.get(key);
-    if (r === undefined) {
-      r = rows.length;
-      index.set(key, r);
-      keys.push(key);
-      rows.push(new Array<number>(n).fill(0));
+  const augmented: bigint[][] = (matrix.rows as ReadonlyArray<ReadonlyArray<number | bigint>>).map((r) => [
+    ...r.map((v) => BigInt(v)),
+    0n,
+  ]);
+  let kernel: Nullspace | null = null;
+  for (let f = 0; f < fixed.length; f++) {
+    const { index, key, value } = fixed[f]!;
+    const row = new Array<bigint>(n + 1).fill(0n);
+    row[index] = value.d;
+    row[n] = -value.n;
+    augmented.push(row);
+    kernel = integerNullspace(augmented, n + 1);
+    const others = fixed.slice(0, f).map((o) => `term ${o.index} = ${ratText(o.value)}`);
+    const field = `fixed.${key}`;
+    if (!kernel.basis.some((v) => v[n] !== 0n)) {
+      throw new BalanceInputError(
+        requestMessages.noBalancingWithFixed(ratText(value), label(terms, index), others),
+        field,
+      );
     }
-    return rows[r]!;
+    if (positiveExample(kernel) === null) {
+      throw new BalanceInputError(
+        requestMessages.fixedForcesNonPositive(ratText(value), label(terms, index), others),
+        field,
+      );
+    }
+  }
+  const k = kernel!;
+  // Directions that keep the fixed values: kernel vectors with t = 0 after eliminating t.
+  const pivot = k.basis.find((v) => v[n] !== 0n)!;
+  const free = k.basis
+    .filter((v) => v !== pivot)
+    .map((v) => primitive(v.map((x, j) => x * pivot[n]! - pivot[j]! * v[n]!)).slice(0, n));
+  if (free.length === 0) return { status: 'balanced', coefficients: scaledToT(pivot, n), dimension: 0, basis: [] };
+  const example = positiveExample(k);
+  return {
+    status: 'multiple',
+    coefficients: example ? scaledToT(example, n) : null,
+    dimension: free.length,
+    basis: free,
   };
-  terms.forEach((t, j) => {
-    const s = t.side === 'reactant' ? 1 : -1;
-    for (const symbol in t.species.composition) rowFor(symbol)[j]! += s * t.species.composition[symbol]!;
-  });
-  if (terms.some((t) => t.species.charge !== 0)) {
-    const row = rowFor('charge');
-    terms.forEach((t, j) => (row[j] = (t.side === 'reactant' ? 1 : -1) * t.species.charge));
+}
+
+// ----- 6. Normalising and ΔH ------------------------------------------------------------------
+
+/** The coefficients divided by that of term `index` (so it becomes 1), or unchanged. */
+function normalised(coefficients: Rat[], index: number | undefined): Rat[] {
+  if (index === undefined) return coefficients;
+  const pivot = coefficients[index]!;
+  return coefficients.map((c) => div(c, pivot));
+}
+
+/**
+ * ΔH of the answer: the typed ΔH times the factor between the answer and the typed coefficients,
+ * when the answer is such a multiple and the typed coefficients balance; otherwise null with an
+ * `enthalpy_not_carried` warning.
+ * @throws BalanceInputError when the scaled ΔH or its uncertainty is not a finite number.
+ */
+function carriedEnthalpy(
+  stated: EnthalpyValue,
+  given: readonly Rat[],
+  coefficients: readonly Rat[],
+  asGiven: boolean,
+  request: BalanceRequest,
+  warnings: ParseWarning[],
+): EnthalpyValue | null {
+  const factor = div(coefficients[0]!, given[0]!);
+  const proportional = asGiven && coefficients.every((c, j) => eq(c, mul(factor, given[j]!)));
+  if (!proportional) {
+    warnings.push({ code: 'enthalpy_not_carried', message: warningMessages.enthalpyNotCarried() });
+    return null;
   }
-
-  const given = terms.map((t) => parseRational(t.coefficient)!);
-  const asGiven = balancesExactly(rows, given);
-
-  const ns = integerNullspace(rows, n);
-  const k = ns.basis.length;
-  const result = (
-    partial: Partial<BalanceResult> & Pick<BalanceResult, 'status'>,
-    coefficients: Rat[] | null,
-  ): BalanceResult => {
-    let coeffs = coefficients ?? given;
-    if (normaliseTo !== undefined && coefficients) {
-      const pivot = coeffs[normaliseTo]!;
-      coeffs = coeffs.map((c) => div(c, pivot));
-    }
-    const coeffText = coeffs.map(ratText);
-    const model: SpeciesTerm[] = terms.map((t, j) => ({
-      species: t.species,
-      side: t.side,
-      coefficient: coeffText[j]!,
-      coefficientWritten: true,
-    }));
-    let enthalpy: EnthalpyValue | null = null;
-    if (parsed.enthalpy && partial.status !== 'impossible' && coefficients) {
-      const factor = div(coeffs[0]!, given[0]!);
-      const proportional = coeffs.every((c, j) => ratText(mul(factor, given[j]!)) === coeffText[j]);
-      if (proportional && asGiven) {
-        const f = ratToNumber(factor);
-        enthalpy = { value: parsed.enthalpy.value * f, stated: parsed.enthalpy.stated };
-        if (parsed.enthalpy.uncertainty !== undefined) enthalpy.uncertainty = parsed.enthalpy.uncertainty * Math.abs(f);
-      } else {
-        warnings.push({
-          code: 'enthalpy_not_carried',
-          message:
-            'ΔH was stated for the equation as typed, which is not a multiple of the balanced equation; it is not carried over.',
-        });
-      }
-    }
-    const out: BalanceResult = {
-      status: partial.status,
-      equation: formatEquation({ terms: model, enthalpy }, 'text'),
-      terms: terms.map((t, j) => ({
-        formula: t.species.formula,
-        hill: t.species.hill,
-        phase: t.species.phase,
-        descriptor: t.species.descriptor,
-        charge: t.species.charge,
-        side: t.side,
-        coefficient: coeffText[j]!,
-      })),
-      asGiven,
-      dimension: partial.dimension ?? k,
-      warnings: warnings.map((w) => {
-        const plain: BalanceResult['warnings'][number] = { code: w.code, message: w.message };
-        if (w.term !== undefined) plain.term = w.term;
-        if (w.column !== undefined) plain.column = w.column;
-        return plain;
-      }),
-    };
-    if (!asGiven) {
-      out.givenImbalance = givenTable(keys, rows, terms, given);
-    }
-    if (partial.basis) out.basis = partial.basis;
-    if (partial.reason) out.reason = partial.reason;
-    if (enthalpy) {
-      out.enthalpy = { value: enthalpy.value, unit: 'kJ/mol' };
-      if (enthalpy.uncertainty !== undefined) out.enthalpy.uncertainty = enthalpy.uncertainty;
-    }
-    return out;
-  };
-  const basisText = (b: bigint[][]): string[][] => b.map((v) => v.map((x) => x.toString()));
-
-  // 1. An element or the charge on one side only.
-  const oneSide = oneSideReasons(keys, rows, terms);
-  if (oneSide.length > 0) {
-    return result(
-      { status: 'impossible', reason: oneSide.join(' '), ...(k > 0 ? { basis: basisText(ns.basis) } : {}) },
-      null,
+  const f = ratToNumber(factor);
+  const value = stated.value * f;
+  const uncertainty = stated.uncertainty === undefined ? undefined : stated.uncertainty * Math.abs(f);
+  if (!Number.isFinite(value) || (uncertainty !== undefined && !Number.isFinite(uncertainty))) {
+    throw new BalanceInputError(
+      requestMessages.enthalpyOverflow(`Scaling the equation by ${ratText(factor)}`),
+      request.scalingField,
     );
   }
-  // 2. Only the zero solution.
-  if (k === 0) {
-    const names = keys.map((key) => (key === 'charge' ? 'the charge' : key));
-    return result(
-      {
-        status: 'impossible',
-        reason: `No balancing exists: the only coefficients that balance ${listWords(names)} together are all zero.`,
-      },
-      null,
-    );
-  }
-  // 3. A species that is zero in every balancing must vanish.
-  const vanish = terms.map((t, j) => (ns.basis.every((b) => b[j] === 0n) ? j : -1)).filter((j) => j >= 0);
-  if (vanish.length > 0) {
-    const who = vanish.map((j) => speciesLabel(terms[j]!, j));
-    return result(
-      {
-        status: 'impossible',
-        reason: `${listWords(who)} would have to vanish: every balancing gives ${vanish.length > 1 ? 'them' : 'it'} coefficient 0.`,
-        basis: basisText(ns.basis),
-      },
-      null,
-    );
-  }
-  const example = positiveExample(ns, n);
-  if (example === null) {
-    let reason = 'No balancing has every coefficient positive: some species would have to change side.';
-    if (k === 1) {
-      const v = ns.basis[0]!;
-      const pos = v.filter((x) => x > 0n).length;
-      const oriented = pos * 2 >= v.length ? v : v.map((x) => -x);
-      const flip = terms.map((_, j) => j).filter((j) => oriented[j]! < 0n);
-      reason = `${listWords(flip.map((j) => speciesLabel(terms[j]!, j)))} would have to change side (the only balancing gives ${flip.length > 1 ? 'them' : 'it'} a negative coefficient).`;
-    }
-    return result({ status: 'impossible', reason, basis: basisText(ns.basis) }, null);
-  }
+  return { value, ...(uncertainty === undefined ? {} : { uncertainty }), stated: stated.stated };
+}
 
-  // 4. Balancing exists. Fixed coefficients choose among several (or set the scale).
-  if (fixed.length > 0) {
-    const solved = solveFixed(rows, terms, fixed);
-    if (solved.status === 'balanced') return result({ status: 'balanced' }, solved.coefficients);
-    return result(
-      { status: 'multiple', dimension: solved.dimension, basis: basisText(solved.basis ?? []) },
-      solved.coefficients,
-    );
-  }
-  if (k === 1) {
-    return result({ status: 'balanced' }, asGiven ? given : example!.map((x) => rat(x)));
-  }
-  if (asGiven) {
-    warnings.push({
-      code: 'other_balancings',
-      message: `The coefficients as typed balance, but ${k} independent balancings exist for these species; see the basis.`,
-    });
-    return result({ status: 'balanced', basis: basisText(ns.basis) }, given);
-  }
-  return result({ status: 'multiple', basis: basisText(ns.basis) }, example ? example.map((x) => rat(x)) : null);
+// ----- 7. The basis, cut to the limit ---------------------------------------------------------
+
+function listedBasis(
+  basis: bigint[][],
+  max: number,
+  warnings: ParseWarning[],
+): { basis: bigint[][]; truncated: boolean } {
+  if (basis.length <= max) return { basis, truncated: false };
+  warnings.push({ code: 'basis_truncated', message: warningMessages.basisTruncated(basis.length, max) });
+  return { basis: basis.slice(0, max), truncated: true };
 }

@@ -1,59 +1,88 @@
-import type { BalanceResult, ParseErrorDetails } from '../schemas/balance';
 import { balanceEquationText } from './balance';
 import { ChemistryError, EquationParseError } from './errors';
+import { checkWorkLimit, DEFAULT_WORK_LIMITS, resolveWorkLimits, type WorkLimits } from './limits';
+import type { Balancing } from './types';
 
-/** A batch line that balanced (or was found impossible/multiple). */
-export interface BatchLineResult {
-  line: number;
-  source: string;
-  result: BalanceResult;
+/** Options of `balanceEquationLines`. */
+export interface BatchOptions {
+  /** Work limits (defaults: `DEFAULT_WORK_LIMITS`): `maxCharacters` and `maxLines` for the whole batch, the others per line. */
+  limits?: Partial<WorkLimits>;
 }
-/** A batch line that could not be read; `details.line` is the line in the whole input. */
-export interface BatchLineError {
+
+interface LineBase {
+  /** Line number in the whole input, from 1. */
   line: number;
+  /** The line as typed (without its line break). */
   source: string;
-  error: { message: string; details: ParseErrorDetails };
+  /** Offset of the line's first character in the whole input, from 0. */
+  offset: number;
 }
-export type BatchLine = BatchLineResult | BatchLineError;
+
+/** A line that was balanced (its status may still be `multiple` or `impossible`). */
+export interface BalancedLine extends LineBase {
+  balancing: Balancing;
+}
 
 /**
- * Balances one equation per non-empty line. Blank lines and lines whose first non-space
- * character is `#` are skipped; `line` numbers (from 1) are those of the input, and parse errors
- * report the input's line too. Lines are independent: a bad line does not stop the others.
+ * A line that could not be balanced: an `EquationParseError` placed in the whole input (line,
+ * column and offset of the input), a `WorkLimitError` for a line over a per-equation limit, or
+ * another `ChemistryError`.
  */
-export function parseEquationBatch(text: string): BatchLine[] {
-  const out: BatchLine[] = [];
+export interface RefusedLine extends LineBase {
+  error: ChemistryError;
+}
+
+/** One equation line of a batch and its outcome, in input order. */
+export type BatchLine = BalancedLine | RefusedLine;
+
+/** Whether a line holds an equation: not blank, and not a comment (first non-space character `#`). */
+export function isEquationLine(line: string): boolean {
+  for (let i = 0; i < line.length; i++) {
+    const c = line.charCodeAt(i);
+    if (c === 32 || c === 9 || c === 13 || c === 0xa0 || c === 0x2009 || c === 0x202f || c === 0xfeff) continue;
+    return c !== 35; // '#'
+  }
+  return false;
+}
+
+/**
+ * Balances one equation per line. Blank lines and lines whose first non-space character is `#`
+ * are skipped; `line` numbers (from 1) are those of the input, and parse errors are placed in the
+ * input. Lines are independent: a bad line gets its own entry and does not stop the others.
+ *
+ * @throws WorkLimitError before any line is read when the text has more than `maxCharacters`
+ *   characters or more than `maxLines` equation lines.
+ */
+export function balanceEquationLines(text: string, options: BatchOptions = {}): BatchLine[] {
+  const limits = options.limits === undefined ? DEFAULT_WORK_LIMITS : resolveWorkLimits(options.limits);
+  checkWorkLimit('characters', limits.maxCharacters, text.length);
   const lines = text.split('\n');
+  let equations = 0;
+  for (const raw of lines) if (isEquationLine(raw)) equations++;
+  checkWorkLimit('lines', limits.maxLines, equations);
+
+  const lineLimits = { limits };
+  const out: BatchLine[] = [];
   let offset = 0;
   lines.forEach((raw, i) => {
-    const source = raw.replace(/\r$/, '');
     const lineOffset = offset;
     offset += raw.length + 1;
-    const trimmed = source.trim();
-    if (trimmed === '' || trimmed.startsWith('#')) return;
+    if (!isEquationLine(raw)) return;
+    const source = raw.endsWith('\r') ? raw.slice(0, -1) : raw;
     const line = i + 1;
     try {
-      out.push({ line, source, result: balanceEquationText({ equation: source }) });
+      out.push({ line, source, offset: lineOffset, balancing: balanceEquationText(source, lineLimits) });
     } catch (err) {
       if (err instanceof EquationParseError) {
-        const message =
-          err.position.line === 1 && line > 1
-            ? err.message.replace(/ at column (\d+)/, ` at line ${line}, column $1`)
-            : err.message;
+        const at = err.position;
         out.push({
           line,
           source,
-          error: { message, details: { ...err.position, line, offset: lineOffset + err.position.offset } },
+          offset: lineOffset,
+          error: err.relocated({ ...at, line, offset: lineOffset + at.offset }),
         });
       } else if (err instanceof ChemistryError) {
-        out.push({
-          line,
-          source,
-          error: {
-            message: err.message,
-            details: { line, column: 1, offset: lineOffset, excerpt: source.slice(0, 48), expected: [] },
-          },
-        });
+        out.push({ line, source, offset: lineOffset, error: err });
       } else {
         throw err;
       }

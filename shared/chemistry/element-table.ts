@@ -1,81 +1,78 @@
-import { parseRational, rat, ratText, add, mul, ZERO, type Rat } from './rational';
-import type { Composition, Side } from './types';
-
-/** A term with its coefficient, as `elementBalanceTable` needs it. */
-export interface CountedTerm {
-  composition: Composition;
-  charge: number;
-  side: Side;
-  /** Exact fraction text ("2", "1/2"). */
-  coefficient: string;
-}
-
-/** One row: an element symbol (or "charge") and its total on each side, as exact fraction text. */
-export interface BalanceRow {
-  element: string;
-  reactants: string;
-  products: string;
-}
+import { add, mul, ratOfInteger, ZERO, eq, type Rat } from './rational';
+import type { ElementTotals, Side, SpeciesTerm } from './types';
 
 /**
  * Totals of every element (in order of first appearance) and, when any term is charged, of the
- * charge ("charge" row, in elementary charges), on each side: Σ coefficient × count.
- * Throws RangeError on an unreadable coefficient.
+ * charge (key "charge", in elementary charges) on each side: Σ coefficient × atoms per formula
+ * unit, exact. `coefficients` (term order) replace the terms' own when given.
  */
-export function elementBalanceTable(terms: readonly CountedTerm[]): BalanceRow[] {
-  if (terms.every((t) => /^\d{1,9}$/.test(t.coefficient))) return wholeNumberTable(terms);
+export function elementTotals(terms: readonly SpeciesTerm[], coefficients?: readonly Rat[]): ElementTotals[] {
+  const c = coefficients ?? terms.map((t) => t.coefficient);
+  return wholeNumberTotals(terms, c) ?? exactTotals(terms, c);
+}
+
+/** True when every row of `elementTotals(terms, coefficients)` has equal sides. */
+export function isBalanced(terms: readonly SpeciesTerm[], coefficients?: readonly Rat[]): boolean {
+  return elementTotals(terms, coefficients).every((row) => eq(row.reactants, row.products));
+}
+
+function exactTotals(terms: readonly SpeciesTerm[], coefficients: readonly Rat[]): ElementTotals[] {
   const totals = new Map<string, { reactants: Rat; products: Rat }>();
-  let charged = false;
   const bump = (key: string, side: Side, amount: Rat): void => {
-    const row = totals.get(key) ?? { reactants: ZERO, products: ZERO };
+    let row = totals.get(key);
+    if (!row) totals.set(key, (row = { reactants: ZERO, products: ZERO }));
     if (side === 'reactant') row.reactants = add(row.reactants, amount);
     else row.products = add(row.products, amount);
-    totals.set(key, row);
   };
-  for (const t of terms) {
-    const c = parseRational(t.coefficient);
-    if (c === null) throw new RangeError(`unreadable coefficient '${t.coefficient}'`);
-    for (const [symbol, count] of Object.entries(t.composition)) bump(symbol, t.side, mul(c, rat(BigInt(count))));
-    if (t.charge !== 0) charged = true;
-  }
-  if (charged) {
+  terms.forEach((t, j) => {
+    const c = coefficients[j]!;
+    const composition = t.species.composition;
+    for (const symbol in composition) bump(symbol, t.side, mul(c, composition[symbol]!));
+  });
+  if (terms.some((t) => t.species.charge !== 0)) {
     totals.set('charge', { reactants: ZERO, products: ZERO });
-    for (const t of terms)
-      if (t.charge !== 0) bump('charge', t.side, mul(parseRational(t.coefficient)!, rat(BigInt(t.charge))));
+    terms.forEach((t, j) => {
+      if (t.species.charge !== 0) bump('charge', t.side, mul(coefficients[j]!, ratOfInteger(t.species.charge)));
+    });
   }
-  return [...totals].map(([element, { reactants, products }]) => ({
-    element,
-    reactants: ratText(reactants),
-    products: ratText(products),
-  }));
+  return [...totals].map(([element, { reactants, products }]) => ({ element, reactants, products }));
 }
 
-/** True when every row of `elementBalanceTable(terms)` has equal sides. */
-export function isBalanced(terms: readonly CountedTerm[]): boolean {
-  return elementBalanceTable(terms).every((r) => r.reactants === r.products);
-}
-
-// Same table with plain numbers when every coefficient is a small whole number (exact: all
-// products stay far below 2^53), avoiding BigInt work on the common path.
-function wholeNumberTable(terms: readonly CountedTerm[]): BalanceRow[] {
+// The same totals with plain numbers when every coefficient, count and charge is a whole number
+// below 2^20 in size: products stay below 2^40 and sums of up to 1,000 of them below 2^50, exact in
+// doubles. Null otherwise (the exact path runs instead).
+const SMALL = 2n ** 20n;
+function wholeNumberTotals(terms: readonly SpeciesTerm[], coefficients: readonly Rat[]): ElementTotals[] | null {
+  if (terms.length > 1000) return null;
   const totals = new Map<string, [number, number]>();
   let charged = false;
-  for (const t of terms) {
-    const c = Number(t.coefficient);
+  for (let j = 0; j < terms.length; j++) {
+    const t = terms[j]!;
+    const c = coefficients[j]!;
+    if (c.d !== 1n || c.n >= SMALL || c.n <= -SMALL) return null;
     const k = t.side === 'reactant' ? 0 : 1;
-    for (const symbol in t.composition) {
+    const composition = t.species.composition;
+    for (const symbol in composition) {
+      const count = composition[symbol]!;
+      if (count.d !== 1n || count.n >= SMALL) return null;
       let row = totals.get(symbol);
       if (!row) totals.set(symbol, (row = [0, 0]));
-      row[k] += c * t.composition[symbol]!;
+      row[k] += Number(c.n) * Number(count.n);
     }
-    if (t.charge !== 0) charged = true;
+    if (t.species.charge !== 0) {
+      if (Math.abs(t.species.charge) >= 2 ** 20) return null;
+      charged = true;
+    }
   }
   if (charged) {
     const row: [number, number] = [0, 0];
-    for (const t of terms) row[t.side === 'reactant' ? 0 : 1] += Number(t.coefficient) * t.charge;
+    terms.forEach((t, j) => (row[t.side === 'reactant' ? 0 : 1] += Number(coefficients[j]!.n) * t.species.charge));
     totals.set('charge', row);
   }
-  const out: BalanceRow[] = [];
-  for (const [element, [r, p]] of totals) out.push({ element, reactants: String(r), products: String(p) });
+  const out: ElementTotals[] = [];
+  for (const [element, [r, p]] of totals) {
+    if (!Number.isSafeInteger(r) || !Number.isSafeInteger(p)) return null;
+    out.push({ element, reactants: ratOfInteger(r), products: ratOfInteger(p) });
+  }
   return out;
 }

@@ -1,5 +1,4 @@
-import type { BalanceResult } from '../schemas/balance';
-import { equationFromBalanceResult } from './equation-ops';
+import { ratText, type Rat } from './rational';
 import type { EnthalpyValue, EquationModel, FormulaFormat, FormulaItem, FormulaPart, ParsedSpecies } from './types';
 
 const SUB = '₀₁₂₃₄₅₆₇₈₉';
@@ -21,10 +20,24 @@ function itemsIn(items: readonly FormulaItem[], sub: (digits: string) => string)
     .join('');
 }
 
-function partsIn(parts: readonly FormulaPart[], sub: (digits: string) => string, dot: string): string {
-  return parts
-    .map((p, i) => (i > 0 && p.multiplier !== 1 ? String(p.multiplier) : '') + itemsIn(p.items, sub))
-    .join(dot);
+const VULGAR_TEXT: Readonly<Record<string, string>> = {
+  '1/2': '½',
+  '1/3': '⅓',
+  '2/3': '⅔',
+  '1/4': '¼',
+  '3/4': '¾',
+  '1/8': '⅛',
+};
+
+/** A hydrate multiplier: nothing for 1, "5", "1/2"; as a vulgar fraction character where one exists when `vulgar`. */
+function multiplierIn(multiplier: Rat, vulgar: boolean): string {
+  if (multiplier.n === 1n && multiplier.d === 1n) return '';
+  const text = ratText(multiplier);
+  return vulgar ? (VULGAR_TEXT[text] ?? text) : text;
+}
+
+function partsIn(parts: readonly FormulaPart[], sub: (digits: string) => string, dot: string, vulgar: boolean): string {
+  return parts.map((p, i) => (i > 0 ? multiplierIn(p.multiplier, vulgar) : '') + itemsIn(p.items, sub)).join(dot);
 }
 
 function phaseText(species: ParsedSpecies, html: boolean): string {
@@ -43,7 +56,7 @@ function speciesBody(species: ParsedSpecies, format: FormulaFormat): string {
     case 'unicode': {
       const charge = q === 0 ? '' : toScript(mag, SUP) + (q > 0 ? '⁺' : '⁻');
       return (
-        (species.electron ? 'e' : partsIn(species.parts, (d) => toScript(d, SUB), '·')) +
+        (species.electron ? 'e' : partsIn(species.parts, (d) => toScript(d, SUB), '·', true)) +
         charge +
         phaseText(species, false)
       );
@@ -51,15 +64,15 @@ function speciesBody(species: ParsedSpecies, format: FormulaFormat): string {
     case 'html': {
       const charge = q === 0 ? '' : `<sup>${mag}${q > 0 ? '+' : '−'}</sup>`;
       return (
-        (species.electron ? 'e' : partsIn(species.parts, (d) => `<sub>${d}</sub>`, '·')) +
+        (species.electron ? 'e' : partsIn(species.parts, (d) => `<sub>${d}</sub>`, '·', true)) +
         charge +
         phaseText(species, true)
       );
     }
     case 'mhchem':
-      // mhchem writes the adduct dot as "*" and charges as ^2-.
+      // mhchem writes the adduct dot as "*", fractions as 1/2 and charges as ^2-.
       return (
-        (species.electron ? 'e' : partsIn(species.parts, (d) => d, '*')) +
+        (species.electron ? 'e' : partsIn(species.parts, (d) => d, '*', false)) +
         (q === 0 ? '' : `^${mag}${q > 0 ? '+' : '-'}`) +
         phaseText(species, false)
       );
@@ -68,15 +81,18 @@ function speciesBody(species: ParsedSpecies, format: FormulaFormat): string {
 
 /**
  * Formats a species with its charge and phase:
- * - 'text': plain ASCII caret notation that parses back ("SO4^2-(aq)", "CuSO4·5H2O(s)");
- * - 'unicode': sub/superscript characters ("SO₄²⁻(aq)");
+ * - 'text': plain caret notation that parses back ("SO4^2-(aq)", "CuSO4·5H2O(s)", "CaSO4·1/2H2O");
+ * - 'unicode': sub/superscript characters and vulgar fractions ("SO₄²⁻(aq)", "CaSO₄·½H₂O");
  * - 'html': <sub>/<sup> markup, text escaped ("SO<sub>4</sub><sup>2−</sup>(aq)");
- * - 'mhchem': LaTeX for the mhchem package ("\ce{SO4^2-(aq)}").
+ * - 'mhchem': LaTeX for the mhchem package ("\ce{SO4^2-(aq)}", "\ce{CaSO4*1/2H2O}").
  */
 export function formatFormula(species: ParsedSpecies, format: FormulaFormat): string {
   const body = speciesBody(species, format);
   return format === 'mhchem' ? `\\ce{${body}}` : body;
 }
+
+/** The typographic minus sign (U+2212) for a negative number's text. */
+const minus = (text: string): string => (text.startsWith('-') ? `−${text.slice(1)}` : text);
 
 /** A number without float noise (12 significant digits), "-0" as "0". */
 function plainNumber(v: number): string {
@@ -85,46 +101,47 @@ function plainNumber(v: number): string {
 }
 
 /**
- * Formats ΔH (kJ/mol per mole of reaction as written) as ", ΔH = -285.8 kJ/mol" in the given
- * notation (the leading ", " included for text/unicode/html; mhchem gives the \Delta H part).
+ * Formats ΔH (kJ/mol per mole of reaction as written) as "ΔH = -285.8 kJ/mol" in the given
+ * notation (mhchem gives "\Delta H = \pu{…}"). Negative = exothermic.
  */
 export function formatEnthalpy(enthalpy: Pick<EnthalpyValue, 'value' | 'uncertainty'>, format: FormulaFormat): string {
   const value = plainNumber(enthalpy.value);
   const unc = enthalpy.uncertainty === undefined ? '' : plainNumber(enthalpy.uncertainty);
   switch (format) {
     case 'text':
-      return `, ΔH = ${value}${unc ? ` ± ${unc}` : ''} kJ/mol`;
+      return `ΔH = ${value}${unc ? ` ± ${unc}` : ''} kJ/mol`;
     case 'unicode':
-      return `, ΔH = ${value.replace('-', '−')}${unc ? ` ± ${unc}` : ''} kJ/mol`;
+      return `ΔH = ${minus(value)}${unc ? ` ± ${unc}` : ''} kJ/mol`;
     case 'html':
-      return `, Δ<i>H</i> = ${value.replace('-', '−')}${unc ? ` ± ${unc}` : ''} kJ mol<sup>−1</sup>`;
+      return `Δ<i>H</i> = ${minus(value)}${unc ? ` ± ${unc}` : ''} kJ mol<sup>−1</sup>`;
     case 'mhchem':
       return `\\Delta H = \\pu{${value}${unc ? ` +- ${unc}` : ''} kJ mol^-1}`;
   }
 }
 
-function isBalanceResult(eq: EquationModel | BalanceResult): eq is BalanceResult {
-  return 'status' in eq;
-}
-
 /**
- * Formats a whole equation (a parsed equation, any `EquationModel`, or a `BalanceResult`):
+ * Formats a whole equation (a parsed equation, a balancing's `equation`, any `EquationModel`):
  * coefficients as exact fractions (1 omitted), species as `formatFormula`, the arrow (→ or ⇌ in
  * unicode/html; -> or <=> in text and mhchem) and ΔH when known.
  */
-export function formatEquation(eq: EquationModel | BalanceResult, format: FormulaFormat): string {
-  const model = isBalanceResult(eq) ? equationFromBalanceResult(eq) : eq;
-  const equilibrium = 'equilibrium' in model && model.equilibrium === true;
-  const side = (s: 'reactant' | 'product'): string =>
-    model.terms
-      .filter((t) => t.side === s)
-      .map((t) => (t.coefficient === '1' ? '' : `${t.coefficient} `) + speciesBody(t.species, format))
-      .join(' + ');
+export function formatEquation(model: EquationModel, format: FormulaFormat): string {
+  const equilibrium = model.equilibrium;
   const arrow = format === 'text' || format === 'mhchem' ? (equilibrium ? '<=>' : '->') : equilibrium ? '⇌' : '→';
-  const core = `${side('reactant')} ${arrow} ${side('product')}`;
+  const core = `${sideText(model, 'reactant', format)} ${arrow} ${sideText(model, 'product', format)}`;
   if (format === 'mhchem') {
     const tail = model.enthalpy ? ` \\quad ${formatEnthalpy(model.enthalpy, 'mhchem')}` : '';
     return `\\ce{${core}}${tail}`;
   }
-  return core + (model.enthalpy ? formatEnthalpy(model.enthalpy, format) : '');
+  return core + (model.enthalpy ? `, ${formatEnthalpy(model.enthalpy, format)}` : '');
+}
+
+function sideText(model: EquationModel, side: 'reactant' | 'product', format: FormulaFormat): string {
+  let out = '';
+  for (const t of model.terms) {
+    if (t.side !== side) continue;
+    const c = t.coefficient;
+    out +=
+      (out === '' ? '' : ' + ') + (c.n === 1n && c.d === 1n ? '' : `${ratText(c)} `) + speciesBody(t.species, format);
+  }
+  return out;
 }

@@ -8,6 +8,7 @@ export interface AstSpan {
   end: number;
 }
 
+/** An element with its subscript, or a bracketed group of items with its multiplier. */
 export type AstItem =
   | { kind: 'element'; symbol: string; count: number; countText: string | null; start: number; end: number }
   | {
@@ -20,12 +21,14 @@ export type AstItem =
       end: number;
     };
 
+/** A hydrate or adduct part; `multiplier` n/d as typed (whole numbers), null when none was written. */
 export interface AstPart {
-  multiplier: number;
+  multiplier: { n: number; d: number } | null;
   items: AstItem[];
   start: number;
 }
 
+/** A charge as typed, before the charge-reading rules of species.ts. */
 export interface AstCharge {
   /** Magnitude as typed (null = no digits, i.e. 1). */
   digits: string | null;
@@ -35,6 +38,7 @@ export interface AstCharge {
   end: number;
 }
 
+/** A phase label with its optional descriptor: `(cr, graphite)`. */
 export interface AstPhase {
   phase: string;
   descriptor: string | null;
@@ -42,6 +46,7 @@ export interface AstPhase {
   end: number;
 }
 
+/** A species as typed: hydrate/adduct parts, charge and phase (the electron has no parts). */
 export interface AstSpecies {
   electron: boolean;
   parts: AstPart[];
@@ -52,10 +57,12 @@ export interface AstSpecies {
   end: number;
 }
 
+/** A term of an equation: a species with its coefficient as typed, or a heat term. */
 export type AstTerm =
   | { kind: 'species'; coefficient: string | null; species: AstSpecies; start: number; end: number }
   | { kind: 'heat'; value: string; unit: string; start: number; end: number };
 
+/** The trailing ΔH as typed (numbers as text). */
 export interface AstEnthalpy {
   value: string;
   uncertainty: string | null;
@@ -65,13 +72,18 @@ export interface AstEnthalpy {
   end: number;
 }
 
+/** What the Equation start rule returns. */
 export interface AstEquation {
-  left: AstTerm[];
+  /** Terms in order; null for terms past the parser's `maxTerms` option (counted, not kept). */
+  left: Array<AstTerm | null>;
   arrow: { text: string; start: number; end: number };
-  right: AstTerm[];
+  right: Array<AstTerm | null>;
   enthalpy: AstEnthalpy | null;
+  /** Every term read, kept or not. */
+  termCount: number;
 }
 
+/** What the FormulaOnly start rule returns. */
 export interface AstFormulaOnly {
   species: AstSpecies;
 }

@@ -1,3 +1,4 @@
+import { ratDecimalOrFraction, ratOfInteger, rat, type Rat } from './rational';
 import type { Composition, FormulaItem, FormulaPart } from './types';
 
 /**
@@ -7,42 +8,109 @@ import type { Composition, FormulaItem, FormulaPart } from './types';
  * write them as hydrogen (CDCl3); without carbon they sort alphabetically like other symbols
  * (D2O → "D2O", T2O → "OT2"). This placement is common practice, no source. A count of 1 is
  * omitted. The electron (empty composition) gives "e".
+ *
+ * Fractional formula units keep their own counts: the Hill formula describes one formula unit as
+ * written, so CaSO4·½H2O gives "CaHO4.5S" (counts as exact decimals; a count with no terminating
+ * decimal is written as a fraction, CaSO4·⅓H2O → "CaH2/3O13/3S"). It is not rescaled to whole
+ * numbers, so it always agrees with the composition and the molar mass of the same unit. (The
+ * crystallographic "sum formula" writes fractional counts the same way.)
  */
 export function hillFormula(composition: Composition): string {
-  const symbols: string[] = [];
-  for (const s in composition) if (composition[s] !== 0) symbols.push(s);
-  if (symbols.length === 0) return 'e';
-  symbols.sort(compareSymbols);
   let out = '';
-  if (composition.C) {
-    // Carbon first, then H, D, T; the rest stays alphabetical.
-    out = term('C', composition.C) + term('H', composition.H) + term('D', composition.D) + term('T', composition.T);
-    for (const s of symbols) if (s !== 'C' && s !== 'H' && s !== 'D' && s !== 'T') out += term(s, composition[s]);
-    return out;
+  for (const symbol of hillOrder(Object.keys(composition), composition.C !== undefined && composition.C.n !== 0n)) {
+    const count = composition[symbol]!;
+    if (count.n === 0n) continue;
+    out += count.n === 1n && count.d === 1n ? symbol : symbol + ratDecimalOrFraction(count);
   }
-  for (const s of symbols) out += term(s, composition[s]);
-  return out;
+  return out === '' ? 'e' : out;
 }
 
-function term(symbol: string, count: number | undefined): string {
-  return !count ? '' : count === 1 ? symbol : symbol + String(count);
+/** The same Hill formula from whole-number counts (the usual case, without BigInt). */
+function hillFormulaOfCounts(counts: ReadonlyMap<string, number>): string {
+  let out = '';
+  const carbon = counts.get('C');
+  for (const symbol of hillOrder([...counts.keys()], carbon !== undefined && carbon !== 0)) {
+    const count = counts.get(symbol)!;
+    if (count === 0) continue;
+    out += count === 1 ? symbol : symbol + String(count);
+  }
+  return out === '' ? 'e' : out;
 }
 
-// Plain code-unit comparison: symbols are ASCII letters, "C" < "Ca" < "Cl" as Hill order requires.
-function compareSymbols(a: string, b: string): number {
-  return a < b ? -1 : a > b ? 1 : 0;
+const CARBON_FIRST = ['C', 'H', 'D', 'T'];
+
+/**
+ * The symbols in Hill order (see `hillFormula`): with carbon, C, H, D, T first, the rest
+ * alphabetical; without, all alphabetical. Symbols are ASCII letters, so the default sort (by
+ * code unit) puts "C" before "Ca" before "Cl", as Hill order requires.
+ */
+function hillOrder(symbols: string[], carbon: boolean): string[] {
+  symbols.sort();
+  if (!carbon) return symbols;
+  const ordered: string[] = [];
+  for (const s of CARBON_FIRST) if (symbols.includes(s)) ordered.push(s);
+  for (const s of symbols) if (!CARBON_FIRST.includes(s)) ordered.push(s);
+  return ordered;
 }
 
-/** Atom counts of a formula structure (groups and hydrate parts multiplied out). */
+/** Atoms per formula unit of a formula structure (groups and hydrate parts multiplied out), exact. */
 export function compositionOf(parts: readonly FormulaPart[]): Composition {
-  const out: Composition = {};
-  for (const part of parts) addItems(out, part.items, part.multiplier);
-  return out;
+  return compositionAndHill(parts).composition;
 }
 
-function addItems(out: Composition, items: readonly FormulaItem[], factor: number): void {
+/**
+ * The composition and the Hill formula of a formula structure in one pass. Whole-number parts are
+ * summed as plain numbers (every count has at most 9 digits and nesting is bounded, but each sum
+ * is checked, and the exact path runs instead if one ever leaves the safe range).
+ */
+export function compositionAndHill(parts: readonly FormulaPart[]): { composition: Composition; hill: string } {
+  let whole = true;
+  for (const p of parts) if (p.multiplier.d !== 1n || p.multiplier.n > 1_000_000_000n) whole = false;
+  if (whole) {
+    const counts = new Map<string, number>();
+    let safe = true;
+    for (const part of parts) safe = addWhole(counts, part.items, Number(part.multiplier.n)) && safe;
+    if (safe) {
+      const composition: Record<string, Rat> = {};
+      for (const [symbol, count] of counts) composition[symbol] = ratOfInteger(count);
+      return { composition, hill: hillFormulaOfCounts(counts) };
+    }
+  }
+  const exact: Record<string, { n: bigint; d: bigint }> = {};
+  for (const part of parts) addExact(exact, part.items, part.multiplier.n, part.multiplier.d);
+  const composition: Record<string, Rat> = {};
+  for (const symbol in exact) composition[symbol] = rat(exact[symbol]!.n, exact[symbol]!.d);
+  return { composition, hill: hillFormula(composition) };
+}
+
+function addWhole(out: Map<string, number>, items: readonly FormulaItem[], factor: number): boolean {
+  let safe = Number.isSafeInteger(factor);
   for (const item of items) {
-    if (item.kind === 'element') out[item.symbol] = (out[item.symbol] ?? 0) + item.count * factor;
-    else addItems(out, item.items, factor * item.count);
+    if (item.kind === 'element') {
+      const total = (out.get(item.symbol) ?? 0) + item.count * factor;
+      out.set(item.symbol, total);
+      if (!Number.isSafeInteger(total)) safe = false;
+    } else {
+      safe = addWhole(out, item.items, factor * item.count) && safe;
+    }
+  }
+  return safe;
+}
+
+// Sums n/d fractions sharing the denominator of their part (normalised once at the end).
+function addExact(
+  out: Record<string, { n: bigint; d: bigint }>,
+  items: readonly FormulaItem[],
+  n: bigint,
+  d: bigint,
+): void {
+  for (const item of items) {
+    if (item.kind === 'element') {
+      const add = BigInt(item.count) * n;
+      const prev = out[item.symbol];
+      out[item.symbol] = prev ? { n: prev.n * d + add * prev.d, d: prev.d * d } : { n: add, d };
+    } else {
+      addExact(out, item.items, n * BigInt(item.count), d);
+    }
   }
 }

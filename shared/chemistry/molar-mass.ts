@@ -1,4 +1,6 @@
 import { standardAtomicWeights } from './atomic-weights';
+import { argumentMessages } from './messages';
+import { ratToNumber } from './rational';
 import type { Composition } from './types';
 
 /** Molar mass with its uncertainty, in g/mol. */
@@ -18,7 +20,8 @@ export interface MolarMass {
  * Uncertainty: atoms of one element are fully correlated (nᵢ·uᵢ), different elements are
  * combined in quadrature, u(M) = √Σ (nᵢ uᵢ)² (GUM, JCGM 100:2008, §5.1; treating the CIAAW
  * uncertainties as standard uncertainties is common practice, no source). The electron's mass is
- * neglected (an ion's molar mass is that of its atoms, as in the tables).
+ * neglected (an ion's molar mass is that of its atoms, as in the tables). Fractional formula units
+ * count their exact atoms per unit: M(CaSO4·½H2O) = M(CaSO4) + ½ M(H2O).
  * @throws RangeError for an unknown symbol.
  */
 export function molarMass(composition: Composition): MolarMass {
@@ -26,10 +29,11 @@ export function molarMass(composition: Composition): MolarMass {
   let variance = 0;
   const approximateElements: string[] = [];
   const conventionalElements: string[] = [];
-  for (const [symbol, count] of Object.entries(composition)) {
-    if (count === 0) continue;
+  for (const [symbol, exact] of Object.entries(composition)) {
+    if (exact.n === 0n) continue;
+    const count = ratToNumber(exact);
     const w = standardAtomicWeights[symbol];
-    if (!w) throw new RangeError(`unknown element symbol '${symbol}'`);
+    if (!w) throw new RangeError(argumentMessages.unknownSymbol(symbol));
     value += count * w.value;
     variance += (count * w.uncertainty) ** 2;
     if (w.kind === 'mass-number') approximateElements.push(symbol);

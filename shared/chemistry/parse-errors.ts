@@ -1,4 +1,5 @@
 import { EquationParseError } from './errors';
+import { foundWords, parseMessages } from './messages';
 import { excerptAt, positionAt } from './positions';
 
 /** The parts of a Peggy syntax error this module reads (kept structural so no parser import is needed). */
@@ -6,16 +7,12 @@ interface PeggyErrorLike {
   message: string;
   expected: ReadonlyArray<{ type: string; description?: string; text?: string; parts?: unknown[] }> | null;
   found: string | null;
-  location: { start: { offset: number } };
+  location: { start: { offset: number }; end: { offset: number } };
 }
 
 /** True for errors thrown by the generated parser. */
 export function isPeggyError(err: unknown): err is PeggyErrorLike {
   return typeof err === 'object' && err !== null && 'location' in err && 'expected' in err && 'found' in err;
-}
-
-function where(line: number, column: number): string {
-  return line > 1 ? `line ${line}, column ${column}` : `column ${column}`;
 }
 
 function describeExpectation(e: { type: string; description?: string; text?: string }): string | null {
@@ -26,72 +23,48 @@ function describeExpectation(e: { type: string; description?: string; text?: str
   return null;
 }
 
-function joinWords(words: string[]): string {
-  if (words.length <= 1) return words[0] ?? '';
-  return `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`;
-}
-
-function describeFound(found: string | null): string {
-  if (found === null) return 'the end of the text';
-  if (found === '\n' || found === '\r') return 'a line break';
-  if (/\s/.test(found)) return 'a space';
-  return `'${found}'`;
-}
-
 /**
- * Builds an `EquationParseError` at `offset` of `source` with a plain-words message. `what`
- * states the problem (e.g. "unknown element symbol 'Xx'"); " at column N" is appended, or put
- * where `what` says `{at}`.
+ * Builds an `EquationParseError` at `offset` of `source`. `template` states the problem (a text of
+ * `parseMessages`); `length` is how much of the text is at fault (0 when something is missing).
  */
 export function parseErrorAt(
   source: string,
   offset: number,
-  what: string,
+  template: string,
+  length = 0,
   expected: string[] = [],
 ): EquationParseError {
   const { line, column } = positionAt(source, offset);
-  const placed = what.includes('{at}')
-    ? what.replace('{at}', `at ${where(line, column)}`)
-    : `${what} at ${where(line, column)}`;
-  const sentence = placed.charAt(0).toUpperCase() + placed.slice(1);
-  return new EquationParseError(sentence, {
+  return new EquationParseError(template, {
     line,
     column,
     offset,
+    length,
     excerpt: excerptAt(source, offset),
     expected,
   });
 }
 
 /**
- * Rewrites a Peggy error into plain words for chemists: custom messages from the grammar's
- * `error()` calls keep their text; generic "Expected … but … found" messages become a sentence
- * naming what was found and what could have come there.
+ * Rewrites a Peggy error into plain words for chemists: problems raised by the grammar's own
+ * `error()` calls keep their text (and the span of the rule that raised them); generic
+ * "Expected … but … found" failures become a sentence naming what was found and what could have
+ * come there, marking the character found.
  */
 export function rewritePeggyError(source: string, err: PeggyErrorLike): EquationParseError {
   const offset = err.location.start.offset;
-  if (err.expected === null) return parseErrorAt(source, offset, err.message);
+  if (err.expected === null) return parseErrorAt(source, offset, err.message, err.location.end.offset - offset);
 
   const expected = [...new Set(err.expected.map(describeExpectation).filter((w): w is string => w !== null))];
   const found = err.found;
-  if (found === '\n' || found === '\r') {
-    return parseErrorAt(
-      source,
-      offset,
-      'found a line break {at}: only one equation per line here (use the batch input for several)',
-      expected,
-    );
-  }
+  const length = found === null ? 0 : found.length;
+  if (found === '\n' || found === '\r')
+    return parseErrorAt(source, offset, parseMessages.lineBreak(), length, expected);
   if (found === null && expected.some((w) => w.startsWith('an arrow'))) {
-    return parseErrorAt(
-      source,
-      offset,
-      'the equation ends {at} without an arrow: write the reactants, an arrow (->, →, =, <=> or ⇌), then the products',
-      expected,
-    );
+    return parseErrorAt(source, offset, parseMessages.missingArrow(), 0, expected);
   }
   if (found === null && expected.some((w) => w.startsWith('an energy unit'))) {
-    return parseErrorAt(source, offset, 'the energy value ending {at} needs a unit: kJ, J, kcal or cal', expected);
+    return parseErrorAt(source, offset, parseMessages.missingUnit(), 0, expected);
   }
-  return parseErrorAt(source, offset, `expected ${joinWords(expected)}, but found ${describeFound(found)}`, expected);
+  return parseErrorAt(source, offset, parseMessages.expectedButFound(expected, foundWords(found)), length, expected);
 }

@@ -1,12 +1,20 @@
 /**
- * Types shared by the chemistry core's modules. Pure data, no behaviour.
+ * The chemistry core's own model: what the parser reads and what the balancer answers. Pure data,
+ * no behaviour. The API's reply shapes (shared/schemas/balance*.ts) are built from these by one
+ * adapter (`balance-reply.ts`); nothing in the core depends on them.
  *
  * Conventions used throughout `shared/chemistry`:
- * - Stoichiometric coefficients are exact rationals, carried as fraction text ("3", "1/2").
+ * - Stoichiometric coefficients and atom counts are exact rationals (`Rat`, BigInt numerator and
+ *   denominator); counts are per formula unit and may be fractional (CaSO4·½H2O has 4.5 O).
  * - Energies are in kJ/mol inside the core, per mole of reaction *as written*.
  * - Sign convention: ΔH < 0 is exothermic (heat released to the surroundings).
  * - Standard state as recorded by the caller; the parser only reads the phase label.
+ * - Offsets count UTF-16 code units from 0 (end exclusive); lines and columns count from 1.
  */
+import type { ChargeSigns } from './messages';
+import type { Rat } from './rational';
+
+export type { Rat } from './rational';
 
 /** Phase labels the equation language accepts after a species. */
 export type Phase = 's' | 'l' | 'g' | 'aq' | 'cr' | 'am';
@@ -14,8 +22,12 @@ export type Phase = 's' | 'l' | 'g' | 'aq' | 'cr' | 'am';
 /** Which side of the arrow a term stands on. */
 export type Side = 'reactant' | 'product';
 
-/** Element symbol (or `D`/`T` for deuterium/tritium) → number of atoms. Whole numbers only. */
-export type Composition = Record<string, number>;
+/**
+ * Element symbol (or `D`/`T` for deuterium/tritium) → atoms per formula unit, exact. Keys appear in
+ * order of first appearance in the formula; counts are positive (whole, or fractional for
+ * fractional formula units).
+ */
+export type Composition = Readonly<Record<string, Rat>>;
 
 /** Energy units accepted in heat terms and ΔH; kJ/mol is the internal unit. */
 export type EnergyUnit = 'kJ' | 'J' | 'kcal' | 'cal';
@@ -30,27 +42,42 @@ export interface SourceSpan {
   column: number;
 }
 
-/** One group or element inside a formula as typed, kept for faithful formatting. */
+/** Where a parse problem is: line and column from 1, offset from 0, `length` of the faulty text (0 = something is missing). */
+export interface ParsePosition {
+  line: number;
+  column: number;
+  offset: number;
+  length: number;
+  /** The line around the spot, with "…" where cut. */
+  excerpt: string;
+  /** What could have come at the spot, in words. */
+  expected: string[];
+}
+
+/** One group or element inside a formula as typed, kept for faithful formatting. Counts are whole numbers ≥ 1. */
 export type FormulaItem =
   | { kind: 'element'; symbol: string; count: number }
   | { kind: 'group'; bracket: '(' | '['; items: FormulaItem[]; count: number };
 
-/** One part of an adduct/hydrate (`CuSO4·5H2O` has two parts: CuSO4 and 5 × H2O). */
+/**
+ * One part of an adduct or hydrate: `CuSO4·5H2O` has two parts, CuSO4 (multiplier 1) and H2O
+ * (multiplier 5); `CaSO4·½H2O` has H2O with multiplier 1/2.
+ */
 export interface FormulaPart {
-  multiplier: number;
+  multiplier: Rat;
   items: FormulaItem[];
 }
 
 /** How a charge was written, so warnings can point at the reading. */
 export type ChargeNotation = 'caret' | 'braces' | 'parentheses' | 'superscript' | 'trailing-sign' | 'after-bracket';
 
-/** A species as read by the parser: formula, charge and optional phase. */
+/** A species as read by the parser: formula, composition, charge and optional phase. */
 export interface ParsedSpecies {
-  /** The species in plain caret notation without phase, e.g. "SO4^2-", "[Fe(CN)6]^3-", "CuSO4·5H2O", "e^-". */
+  /** Plain caret notation without phase, e.g. "SO4^2-", "[Fe(CN)6]^3-", "CuSO4·5H2O", "CaSO4·1/2H2O", "e^-". */
   formula: string;
-  /** Atom counts over the whole species (hydrate water included). Empty for the electron. */
+  /** Atoms per formula unit over the whole species (hydrate water included). Empty for the electron. */
   composition: Composition;
-  /** Net charge in units of the elementary charge. */
+  /** Net charge in elementary charges (a whole number). */
   charge: number;
   /** Hill-order formula without charge (see `hillFormula`); "e" for the electron. */
   hill: string;
@@ -62,15 +89,21 @@ export interface ParsedSpecies {
   /** Structure as typed (groups, multipliers, hydrate parts) for formatting. */
   parts: FormulaPart[];
   chargeNotation: ChargeNotation | null;
+  /** Where the formula and charge were typed (without the phase label). */
   span: SourceSpan;
 }
 
-/** A warning about how something was read; `code` is stable, `message` is for people. */
+/** Stable warning codes. */
+export type WarningCode =
+  'ambiguous_charge' | 'heat_term_disagrees' | 'enthalpy_not_carried' | 'other_balancings' | 'basis_truncated';
+
+/** A warning about how something was read or balanced; `code` is stable, `message` is for people. */
 export interface ParseWarning {
-  code: string;
+  code: WarningCode;
   message: string;
   /** Term index (species terms only, from 0 in input order). */
   term?: number;
+  /** Column (from 1) the warning points at. */
   column?: number;
 }
 
@@ -78,13 +111,13 @@ export interface ParseWarning {
 export interface SpeciesTerm {
   species: ParsedSpecies;
   side: Side;
-  /** Coefficient as exact fraction text; "1" when none was written. */
-  coefficient: string;
+  /** Exact coefficient (1 when none was written). */
+  coefficient: Rat;
   /** Whether the user wrote a coefficient. */
   coefficientWritten: boolean;
 }
 
-/** An energy value converted to kJ/mol, with what the user typed. */
+/** An energy value converted to kJ/mol, with what the user typed. Always finite. */
 export interface EnthalpyValue {
   /** kJ per mole of reaction as written; negative = exothermic. */
   value: number;
@@ -102,24 +135,82 @@ export interface HeatTerm {
   span: SourceSpan;
 }
 
-/** An equation model: what reverse/scale/format operate on. */
+/** An equation: what reverse, scale and format operate on. */
 export interface EquationModel {
-  /** Species terms in input order (reactants first as typed, then products). */
+  /** Species terms in order: reactants first as typed, then products. */
   terms: SpeciesTerm[];
   /** ΔH of the reaction as written in kJ/mol (heat terms already folded in), or null. */
   enthalpy: EnthalpyValue | null;
+  /** Whether the arrow marks an equilibrium (`<=>`, `⇌`). */
+  equilibrium: boolean;
 }
 
-/** The result of `parseEquation`. */
+/** The result of `parseEquation`: the equation as typed, with what the parser noticed. */
 export interface ParsedEquation extends EquationModel {
   source: string;
   /** The arrow as typed. */
   arrow: string;
-  /** Whether the arrow marks an equilibrium (`<=>`, `⇌`). */
-  equilibrium: boolean;
   /** Heat terms as typed; their effect is already included in `enthalpy`. */
   heatTerms: HeatTerm[];
   /** The trailing ΔH as typed, if any (before heat terms were folded in). */
   statedEnthalpy: EnthalpyValue | null;
+  warnings: ParseWarning[];
+}
+
+/** The three outcomes of balancing. */
+export type BalanceStatus = 'balanced' | 'multiple' | 'impossible';
+
+/** Totals of one element (or of the charge, key "charge") on each side: Σ coefficient × count. */
+export interface ElementTotals {
+  /** Element symbol, or "charge" (in elementary charges). */
+  element: string;
+  reactants: Rat;
+  products: Rat;
+}
+
+/**
+ * Why no balancing with every coefficient positive exists. Term indexes from 0 in input order;
+ * `message` says it in words.
+ */
+export type ImpossibleReason = { message: string } & (
+  | {
+      /** Elements found on one side only, and/or a charge that only one side can carry. */
+      kind: 'one_side';
+      elements: Array<{ element: string; side: Side }>;
+      charge: { reactants: ChargeSigns; products: ChargeSigns } | null;
+    }
+  | { kind: 'only_zero'; /** Element keys (and "charge") that cannot all balance. */ conserved: string[] }
+  | { kind: 'must_vanish'; /** Terms that are 0 in every balancing. */ terms: number[] }
+  | { kind: 'must_change_side'; /** Terms the only balancing gives a negative coefficient. */ terms: number[] }
+  | { kind: 'no_positive_balancing' }
+);
+
+/**
+ * What `balanceEquation` answers.
+ * - `balanced`: one answer in `equation` (smallest whole numbers, or as typed when they balance,
+ *   or as chosen by fixed coefficients; normalised when asked).
+ * - `multiple`: `dimension` independent balancings; `basis` lists up to the basis limit of them
+ *   (integer vectors in term order, positive = on the side written), `equation` holds an example
+ *   with every coefficient positive.
+ * - `impossible`: `impossible` says why; `equation` keeps the coefficients as typed.
+ */
+export interface Balancing {
+  status: BalanceStatus;
+  /** The equation as read. */
+  reading: ParsedEquation;
+  /** The answer: the reading's species with the coefficients found, and ΔH when it carries over. */
+  equation: EquationModel;
+  /** Whether the coefficients as typed balance. */
+  asGiven: boolean;
+  /** Per-element totals of the coefficients as typed, when they do not balance. */
+  givenTotals: ElementTotals[] | null;
+  /** Number of independent balancings (after fixed coefficients, when given). */
+  dimension: number;
+  /** Independent balancings as primitive integer vectors in term order (at most `maxBasisVectors`). */
+  basis: bigint[][];
+  /** True when `basis` lists fewer vectors than `dimension`. */
+  basisTruncated: boolean;
+  impossible: ImpossibleReason | null;
+  /** Warnings of the balancing step (the reading's own are in `reading.warnings`). */
   warnings: ParseWarning[];
 }

@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import { emailSchema, idSchema, isoDateTimeSchema, newPasswordSchema } from './common';
 import { sessionInfoSchema } from './session';
+import { plainText } from './text';
 
 export const updateAccountInputSchema = z.object({
-  displayName: z.string().trim().min(1).max(120),
+  displayName: plainText().trim().min(1).max(120),
 });
 export type UpdateAccountInput = z.infer<typeof updateAccountInputSchema>;
 
@@ -26,7 +27,7 @@ export const apiTokenSchema = z.object({
 export type ApiToken = z.infer<typeof apiTokenSchema>;
 
 export const createApiTokenInputSchema = z.object({
-  name: z.string().trim().min(1).max(80),
+  name: plainText().trim().min(1).max(80),
   /** Days until the token stops working; omitted = no expiry. */
   expiresInDays: z.number().int().min(1).max(3650).optional(),
 });

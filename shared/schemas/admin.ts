@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { emailSchema, idSchema, isoDateTimeSchema } from './common';
 import { siteRoleSchema, teamRoleSchema } from './roles';
+import { plainText } from './text';
 
 export const adminUserSchema = z.object({
   id: idSchema,
@@ -36,7 +37,7 @@ export type AdminTeam = z.infer<typeof adminTeamSchema>;
 export const adminTeamListSchema = z.object({ teams: z.array(adminTeamSchema) });
 
 export const createTeamInputSchema = z.object({
-  name: z.string().trim().min(2).max(120),
+  name: plainText().trim().min(2).max(120),
   /** First team admin, invited by e-mail. */
   adminEmail: emailSchema,
 });

@@ -23,6 +23,8 @@ export const balanceTermSchema = z.object({
   charge: z.number().int(),
   side: z.enum(['reactant', 'product']),
   coefficient: fractionTextSchema,
+  /** Added: atoms per formula unit as exact fractions ("4", "9/2"), keys in order of first appearance. */
+  composition: z.record(z.string(), fractionTextSchema).optional(),
 });
 export type BalanceTerm = z.infer<typeof balanceTermSchema>;
 
@@ -39,6 +41,17 @@ export const balanceWarningSchema = z.object({
   /** Term index the warning concerns, when it concerns one. */
   term: z.number().int().optional(),
   column: z.number().int().optional(),
+  /** Added: whether the warning is about how the text was read or about the balancing. */
+  stage: z.enum(['reading', 'balancing']).optional(),
+});
+
+/** Added to `impossible` replies: why, as data (`reason` says it in words). Term indexes from 0. */
+export const impossibleReasonSchema = z.object({
+  code: z.enum(['one_side', 'only_zero', 'must_vanish', 'must_change_side', 'no_positive_balancing']),
+  /** Terms that would have to vanish or change side. */
+  terms: z.array(z.number().int()).optional(),
+  /** Elements (or "charge") found on one side only, or that cannot all balance. */
+  elements: z.array(z.string()).optional(),
 });
 
 /** POST /api/v1/balance reply. */
@@ -50,7 +63,10 @@ export const balanceResultSchema = z.object({
   givenImbalance: z.array(imbalanceRowSchema).optional(),
   dimension: z.number().int().optional(),
   basis: z.array(z.array(fractionTextSchema)).optional(),
+  /** Added: true when `basis` lists fewer vectors than `dimension` (the reply's work limit). */
+  basisTruncated: z.boolean().optional(),
   reason: z.string().optional(),
+  impossible: impossibleReasonSchema.optional(),
   warnings: z.array(balanceWarningSchema),
   /**
    * ΔH of the returned equation in kJ per mole of reaction as written (negative = exothermic), when
@@ -68,5 +84,15 @@ export const parseErrorDetailsSchema = z.object({
   offset: z.number().int().min(0),
   excerpt: z.string(),
   expected: z.array(z.string()),
+  /** Added: length of the faulty text from `offset` (0 when something is missing). */
+  length: z.number().int().min(0).optional(),
 });
 export type ParseErrorDetails = z.infer<typeof parseErrorDetailsSchema>;
+
+/** Details carried by a `payload_too_large` error from the chemistry core: which limit, its value and what was found. */
+export const workLimitDetailsSchema = z.object({
+  limit: z.enum(['terms', 'species', 'lines', 'characters']),
+  max: z.number().int(),
+  found: z.number().int(),
+});
+export type WorkLimitDetails = z.infer<typeof workLimitDetailsSchema>;

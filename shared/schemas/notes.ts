@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { idSchema, isoDateTimeSchema } from './common';
+import { plainText } from './text';
 
 /** A team note: free text the team keeps beside its work (plans, batch remarks). */
 export const noteSchema = z.object({
@@ -16,8 +17,8 @@ export type Note = z.infer<typeof noteSchema>;
 export const noteListSchema = z.object({ notes: z.array(noteSchema) });
 
 export const noteInputSchema = z.object({
-  title: z.string().trim().min(1, 'Give the note a title.').max(200),
-  body: z.string().max(20_000),
+  title: plainText().trim().min(1, 'Give the note a title.').max(200),
+  body: plainText().max(20_000),
 });
 export type NoteInput = z.infer<typeof noteInputSchema>;
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { emailSchema, idSchema, isoDateTimeSchema, newPasswordSchema } from './common';
 import { teamRoleSchema } from './roles';
+import { plainText } from './text';
 
 export const teamSchema = z.object({
   id: idSchema,
@@ -62,7 +63,7 @@ export const invitationTokenParamsSchema = z.object({ token: z.string().min(20).
 
 /** Accepting: a new account gives a display name and password; an existing one must be signed in. */
 export const acceptInvitationInputSchema = z.object({
-  displayName: z.string().trim().min(1).max(120).optional(),
+  displayName: plainText().trim().min(1).max(120).optional(),
   password: newPasswordSchema.optional(),
 });
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationInputSchema>;

@@ -1,10 +1,16 @@
 import { computed, onScopeDispose, ref, shallowRef, watch, type Ref } from 'vue';
-import { balanceEquationText, ChemistryError, type BalanceResult } from '@shared/chemistry/index';
+import {
+  balanceEquation as balanceHere,
+  ChemistryError,
+  toBalanceReply,
+  type ParsedEquation,
+} from '@shared/chemistry/index';
 import type { BalanceInput } from '@shared/schemas/balance';
 import { balanceEquation } from '@/api/balance';
 import { isApiError } from '@/api/api-error';
 import { apiErrorText, fieldErrors } from '@/lib/api-error-words';
 import { readEquation, type ParseProblem } from '@/lib/read-equation';
+import type { BalanceOutcome } from '@/lib/workbench-view';
 
 /** Options sent with each balance request besides the text. */
 export interface BalanceOptions {
@@ -15,14 +21,17 @@ export interface BalanceOptions {
 /**
  * The equation field's logic: the text is parsed in the browser on every keystroke (so the
  * faulty spot is marked at once) and, once readable, balanced by the server after a short pause.
- * When the server cannot be reached the same core balances in the browser instead.
+ * When the server cannot be reached the same core balances the browser's reading instead. Each
+ * reply is kept with the reading it answers (`outcome`), so the two always describe the same terms.
  */
 export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>, delayMs = 300) {
   const reading = computed(() => readEquation(text.value));
   const parsed = computed(() => (reading.value.kind === 'ok' ? reading.value.parsed : null));
   const problem = computed<ParseProblem | null>(() => (reading.value.kind === 'error' ? reading.value.problem : null));
 
-  const result = shallowRef<BalanceResult | null>(null);
+  const outcome = shallowRef<BalanceOutcome | null>(null);
+  /** The reply alone (null while there is none). */
+  const result = computed(() => outcome.value?.reply ?? null);
   /** A request the server refused for its options (fixed coefficients, normalise index). */
   const requestError = ref<string | null>(null);
   const optionErrors = ref<Record<string, string>>({});
@@ -41,17 +50,23 @@ export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>
     return body;
   }
 
-  function balanceLocally(body: BalanceInput): void {
+  function balanceLocally(reading: ParsedEquation, body: BalanceInput): void {
     try {
-      result.value = balanceEquationText(body);
+      const options = {
+        ...(body.fixed ? { fixed: body.fixed } : {}),
+        ...(body.normaliseTo === undefined ? {} : { normaliseTo: body.normaliseTo }),
+      };
+      outcome.value = { reading, reply: toBalanceReply(balanceHere(reading, options)) };
       computedLocally.value = true;
     } catch (error) {
-      result.value = null;
+      outcome.value = null;
       requestError.value = error instanceof ChemistryError ? error.message : 'The equation could not be balanced.';
     }
   }
 
   async function balanceNow(): Promise<void> {
+    const reading = parsed.value;
+    if (reading === null) return;
     const mine = ++sequence;
     controller?.abort();
     controller = new AbortController();
@@ -60,7 +75,7 @@ export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>
     try {
       const reply = await balanceEquation(body, controller.signal);
       if (mine !== sequence) return;
-      result.value = reply;
+      outcome.value = { reading, reply };
       requestError.value = null;
       optionErrors.value = {};
       computedLocally.value = false;
@@ -76,9 +91,9 @@ export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>
       ) {
         requestError.value = null;
         optionErrors.value = {};
-        balanceLocally(body);
+        balanceLocally(reading, body);
       } else {
-        result.value = null;
+        outcome.value = null;
         requestError.value = apiErrorText(error);
         optionErrors.value = fieldErrors(error);
       }
@@ -95,7 +110,7 @@ export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>
         // Nothing readable: drop the old answer so it cannot be mistaken for this text's.
         sequence++;
         controller?.abort();
-        result.value = null;
+        outcome.value = null;
         requestError.value = null;
         optionErrors.value = {};
         balancing.value = false;
@@ -113,5 +128,16 @@ export function useEquationInput(text: Ref<string>, options: Ref<BalanceOptions>
     controller?.abort();
   });
 
-  return { reading, parsed, problem, result, requestError, optionErrors, balancing, computedLocally, balanceNow };
+  return {
+    reading,
+    parsed,
+    problem,
+    outcome,
+    result,
+    requestError,
+    optionErrors,
+    balancing,
+    computedLocally,
+    balanceNow,
+  };
 }

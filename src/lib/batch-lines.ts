@@ -1,8 +1,10 @@
 /**
  * Preparing batch input: pasted text or an uploaded .txt/.csv becomes one equation per line
- * (for CSV the first column), kept at its original line number, then cut into chunks for the
- * server. Pure, so the line bookkeeping is tested on its own.
+ * (for CSV the first column, read by papaparse), kept at its original line number, then cut into
+ * chunks for the server. Pure, so the line bookkeeping is tested on its own.
  */
+import Papa from 'papaparse';
+import { isEquationLine } from '@shared/chemistry/index';
 
 /** One input line: its number in the original text (from 1) and the equation text. */
 export interface SourceLine {
@@ -10,74 +12,61 @@ export interface SourceLine {
   text: string;
 }
 
-/**
- * First field of one CSV record: quoted ("a, b" with "" for a quote) or up to the first
- * delimiter. Equations contain no commas normally, but a ΔH written "; ΔH = …" might, so
- * quoting is honoured.
- */
-export function firstCsvField(record: string, delimiter = ','): string {
-  const trimmed = record.trimStart();
-  if (trimmed.startsWith('"')) {
-    let out = '';
-    for (let i = 1; i < trimmed.length; i += 1) {
-      const ch = trimmed[i]!;
-      if (ch === '"') {
-        if (trimmed[i + 1] === '"') {
-          out += '"';
-          i += 1;
-        } else {
-          return out;
-        }
-      } else {
-        out += ch;
-      }
-    }
-    return out;
-  }
-  const end = trimmed.indexOf(delimiter);
-  return (end === -1 ? trimmed : trimmed.slice(0, end)).trim();
-}
-
-/** Guesses the CSV delimiter from the first line: semicolon or tab when they outnumber commas. */
-export function guessDelimiter(firstLine: string): string {
-  const count = (c: string) => firstLine.split(c).length - 1;
-  const candidates: Array<[string, number]> = [
-    [',', count(',')],
-    [';', count(';')],
-    ['\t', count('\t')],
-  ];
-  candidates.sort((a, b) => b[1] - a[1]);
-  return candidates[0]![1] > 0 ? candidates[0]![0] : ',';
-}
-
 /** A header row ("equation", "reaction", …) is not an equation. */
 function looksLikeHeader(field: string): boolean {
   return /^(equation|equations|reaction|reactions|input)$/i.test(field.trim());
 }
 
+/** Line breaks (CRLF, LF or CR) in text[from, to). */
+function lineBreaksIn(text: string, from: number, to: number): number {
+  let count = 0;
+  for (let i = from; i < to; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10 || (c === 13 && text.charCodeAt(i + 1) !== 10)) count++;
+  }
+  return count;
+}
+
 /**
- * Lines of a batch. For `kind: 'csv'` each record's first column is taken and a header row is
- * dropped; for text the lines are taken as they are. Line numbers stay those of the input.
- * Records spanning several lines (quoted newlines) are not supported: each line is a record.
+ * The first column of each CSV record (papaparse: quoted fields, doubled quotes, fields spanning
+ * several lines, the delimiter guessed among comma, semicolon, tab and others). A record keeps
+ * the line number where it starts; line breaks inside its first field become spaces, since an
+ * equation is one line. A header row is dropped.
  */
-export function batchLines(text: string, kind: 'text' | 'csv'): SourceLine[] {
-  const raw = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
-  const delimiter = kind === 'csv' ? guessDelimiter(raw.find((l) => l.trim() !== '') ?? '') : ',';
+function csvLines(text: string): SourceLine[] {
   const out: SourceLine[] = [];
-  raw.forEach((value, index) => {
-    const field = kind === 'csv' ? firstCsvField(value, delimiter) : value;
-    if (kind === 'csv' && out.every((l) => l.text.trim() === '') && looksLikeHeader(field)) {
-      out.push({ line: index + 1, text: '' });
-      return;
-    }
-    out.push({ line: index + 1, text: field });
+  let line = 1;
+  let start = 0;
+  let seenData = false;
+  Papa.parse<string[]>(text, {
+    skipEmptyLines: false,
+    step: (row) => {
+      const first = (row.data[0] ?? '').replace(/\r\n|\n|\r/g, ' ');
+      const header = !seenData && looksLikeHeader(first);
+      if (first.trim() !== '') seenData = true;
+      out.push({ line, text: header ? '' : first });
+      const end = row.meta.cursor;
+      line += lineBreaksIn(text, start, end);
+      start = end;
+    },
   });
   return out;
 }
 
+/**
+ * Lines of a batch. For `kind: 'csv'` each record's first column is taken (see `csvLines`); for
+ * text the lines are taken as they are. Line numbers stay those of the input. A leading
+ * byte-order mark is dropped.
+ */
+export function batchLines(text: string, kind: 'text' | 'csv'): SourceLine[] {
+  const clean = text.replace(/^\uFEFF/, '');
+  if (kind === 'csv') return csvLines(clean);
+  return clean.split(/\r\n|\n|\r/).map((value, index) => ({ line: index + 1, text: value }));
+}
+
 /** Lines that hold an equation (not blank, not a "#" comment), as the core skips the others. */
 export function equationLines(lines: readonly SourceLine[]): SourceLine[] {
-  return lines.filter((l) => l.text.trim() !== '' && !l.text.trimStart().startsWith('#'));
+  return lines.filter((l) => isEquationLine(l.text));
 }
 
 /** A chunk to send: its text (one equation per line) and the original line of each of its lines. */

@@ -1,6 +1,7 @@
 /**
  * Where to draw the error marker under an equation: the text before the faulty spot, the faulty
- * token itself and the rest. Pure, so the marker's position is tested without a browser.
+ * text itself and the rest. The core says where the problem is and how long the faulty text is;
+ * this only cuts the line. Pure, so the marker's position is tested without a browser.
  */
 
 export interface MarkedLine {
@@ -12,22 +13,15 @@ export interface MarkedLine {
 }
 
 /**
- * Splits one line at a 1-based column. The marked token is the symbol-like word there (a
- * capital and its lower-case letters, e.g. "Xx"), a run of digits or lower-case letters, else one
- * character; at the end of the line a single blank stands for what is missing.
+ * Splits one line at a 1-based column, marking `length` characters (UTF-16 code units, as the
+ * core counts). A length of 0 (something is missing) marks the one character there, or a blank
+ * after the end of the line.
  */
-export function markColumn(line: string, column: number): MarkedLine {
+export function markColumn(line: string, column: number, length = 0): MarkedLine {
   const start = Math.min(Math.max(column - 1, 0), line.length);
   if (start >= line.length) return { before: line, bad: ' ', after: '', atEnd: true };
-  const rest = line.slice(start);
-  const word = /^(?:[A-Z][a-z]*|[a-z]+|\d+)/.exec(rest);
-  const length = word ? word[0].length : Array.from(rest)[0]!.length;
-  return {
-    before: line.slice(0, start),
-    bad: line.slice(start, start + length),
-    after: line.slice(start + length),
-    atEnd: false,
-  };
+  const end = Math.min(line.length, start + Math.max(length, String.fromCodePoint(line.codePointAt(start)!).length));
+  return { before: line.slice(0, start), bad: line.slice(start, end), after: line.slice(end), atEnd: false };
 }
 
 /** The given line (1-based) of a possibly multi-line text. */

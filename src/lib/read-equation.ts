@@ -2,16 +2,17 @@
  * The browser-side reading of the equation field: the shared parser run on each keystroke, its
  * error turned into what the field needs to mark the spot. Pure (no Vue).
  */
-import { EquationParseError, parseEquation, type ParsedEquation } from '@shared/chemistry/index';
+import {
+  ChemistryError,
+  EquationParseError,
+  parseEquation,
+  type ParsedEquation,
+  type ParsePosition,
+} from '@shared/chemistry/index';
 
-/** A parse problem as the field shows it: plain words and the place, line and column from 1. */
-export interface ParseProblem {
+/** A parse problem as the field shows it: the sentence and the place (line and column from 1, length of the faulty text). */
+export interface ParseProblem extends ParsePosition {
   message: string;
-  line: number;
-  column: number;
-  offset: number;
-  excerpt: string;
-  expected: string[];
 }
 
 export type EquationReading =
@@ -25,18 +26,14 @@ export function readEquation(text: string): EquationReading {
   } catch (error) {
     if (error instanceof EquationParseError)
       return { kind: 'error', problem: { message: error.message, ...error.position } };
-    // Any other failure is a bug in the core; show it rather than crash the page.
-    const message = error instanceof Error ? error.message : String(error);
+    // A work limit (too many terms): the whole text is at fault.
+    const message =
+      error instanceof ChemistryError
+        ? error.message
+        : `The equation could not be read (${error instanceof Error ? error.message : String(error)}).`;
     return {
       kind: 'error',
-      problem: {
-        message: `The equation could not be read (${message}).`,
-        line: 1,
-        column: 1,
-        offset: 0,
-        excerpt: text.slice(0, 40),
-        expected: [],
-      },
+      problem: { message, line: 1, column: 1, offset: 0, length: 0, excerpt: text.slice(0, 40), expected: [] },
     };
   }
 }

@@ -1,20 +1,28 @@
 /**
  * What the workbench shows for a balance reply: the equation after the user's reverse/scale,
- * its element table, a status summary and molar masses. Pure functions over the shared core.
+ * its element table, a status summary and molar masses. Pure functions over the shared core:
+ * the species come from the browser's own reading of the text, the numbers from the typed reply.
  */
 import {
-  elementBalanceTable,
-  equationFromBalanceResult,
+  elementTotals,
+  gcdBigInt,
   molarMass,
+  parseRational,
+  ratText,
   reverseEquation,
   scaleEquation,
-  type BalanceResult,
-  type BalanceRow,
-  type CountedTerm,
   type EquationModel,
+  type ParsedEquation,
+  type Rat,
   type SpeciesTerm,
 } from '@shared/chemistry/index';
-import { parseRational } from '@shared/chemistry/rational';
+import type { BalanceResult } from '@shared/schemas/balance';
+
+/** A balance reply together with the reading of the text it answers (same terms, same order). */
+export interface BalanceOutcome {
+  reading: ParsedEquation;
+  reply: BalanceResult;
+}
 
 export interface Transforms {
   reversed: boolean;
@@ -28,72 +36,107 @@ export function readFactor(text: string): { ok: true; value: string } | { ok: fa
   if (r === null) return { ok: false, message: 'Write an exact number such as 2, 1/2 or 0.5.' };
   if (r.n <= 0n)
     return { ok: false, message: 'The factor must be greater than zero (use Reverse to turn the equation round).' };
-  return { ok: true, value: r.d === 1n ? String(r.n) : `${r.n}/${r.d}` };
+  return { ok: true, value: ratText(r) };
 }
 
 /**
- * The balanced equation as shown, or null when there is no single balancing to show.
- * `equilibrium` keeps the typed ⇌ arrow (the balance reply does not carry it).
+ * The reply's answer as an equation model: the reading's species with the reply's exact
+ * coefficients and ΔH. Null when the reply does not belong to the reading (different terms).
  */
-export function displayedEquation(
-  result: BalanceResult,
-  transforms: Transforms,
-  equilibrium = false,
-): (EquationModel & { equilibrium: boolean }) | null {
-  if (result.status !== 'balanced') return null;
-  let model: EquationModel & { equilibrium: boolean } = { ...equationFromBalanceResult(result), equilibrium };
+export function answerModel({ reading, reply }: BalanceOutcome): EquationModel | null {
+  if (reply.terms.length !== reading.terms.length) return null;
+  const coefficients: Rat[] = [];
+  for (const [j, term] of reply.terms.entries()) {
+    const c = parseRational(term.coefficient);
+    if (c === null || term.side !== reading.terms[j]!.side) return null;
+    coefficients.push(c);
+  }
+  const enthalpy = reply.enthalpy
+    ? {
+        value: reply.enthalpy.value,
+        ...(reply.enthalpy.uncertainty === undefined ? {} : { uncertainty: reply.enthalpy.uncertainty }),
+        stated: { value: reply.enthalpy.value, unit: 'kJ' as const, perMol: true },
+      }
+    : null;
+  return {
+    terms: reading.terms.map((t, j) => ({ ...t, coefficient: coefficients[j]!, coefficientWritten: true })),
+    enthalpy,
+    equilibrium: reading.equilibrium,
+  };
+}
+
+/**
+ * The balanced equation as shown after reverse and scale, or null when there is no single
+ * balancing to show (or the factor would make ΔH too large to show).
+ */
+export function displayedEquation(outcome: BalanceOutcome, transforms: Transforms): EquationModel | null {
+  if (outcome.reply.status !== 'balanced') return null;
+  let model = answerModel(outcome);
+  if (model === null) return null;
   if (transforms.reversed) model = reverseEquation(model);
   const factor = readFactor(transforms.factor);
-  if (factor.ok && factor.value !== '1') model = scaleEquation(model, factor.value);
+  if (factor.ok && factor.value !== '1') {
+    try {
+      model = scaleEquation(model, factor.value);
+    } catch {
+      return null;
+    }
+  }
   return model;
 }
 
-/** Terms as the element table counts them. */
-export function countedTerms(terms: readonly SpeciesTerm[]): CountedTerm[] {
-  return terms.map((t) => ({
-    composition: t.species.composition,
-    charge: t.species.charge,
-    side: t.side,
-    coefficient: t.coefficient,
-  }));
+/** One row of the element table: exact totals as text, and whether the sides differ. */
+export interface BalanceRow {
+  element: string;
+  reactants: string;
+  products: string;
+  mismatch: boolean;
 }
 
-/** Element table rows with a flag for the rows whose sides differ. */
-export function balanceRows(terms: readonly SpeciesTerm[]): Array<BalanceRow & { mismatch: boolean }> {
-  return elementBalanceTable(countedTerms(terms)).map((row) => ({ ...row, mismatch: row.reactants !== row.products }));
+/** Element table rows of the terms with their coefficients, flagging the rows whose sides differ. */
+export function balanceRows(terms: readonly SpeciesTerm[]): BalanceRow[] {
+  return elementTotals(terms).map((row) => {
+    const reactants = ratText(row.reactants);
+    const products = ratText(row.products);
+    return { element: row.element, reactants, products, mismatch: reactants !== products };
+  });
 }
 
-function gcd(a: number, b: number): number {
-  return b === 0 ? a : gcd(b, a % b);
+/** The reply's per-element totals of the coefficients as typed, as table rows. */
+export function givenRows(reply: BalanceResult): BalanceRow[] | null {
+  return reply.givenImbalance?.map((r) => ({ ...r, mismatch: r.reactants !== r.products })) ?? null;
 }
 
 /** True when the coefficients are whole numbers with no common factor (what "balanced" usually means). */
-export function smallestWholeNumbers(coefficients: readonly string[]): boolean {
-  if (coefficients.some((c) => !/^\d+$/.test(c))) return false;
-  return coefficients.map(Number).reduce(gcd, 0) === 1;
+export function smallestWholeNumbers(coefficients: readonly Rat[]): boolean {
+  if (coefficients.some((c) => c.d !== 1n || c.n <= 0n)) return false;
+  return coefficients.reduce((g, c) => gcdBigInt(g, c.n), 0n) === 1n;
 }
 
 export type StatusTone = 'success' | 'warning' | 'error';
 
 /** A status chip's tone, label and a sentence of detail. */
-export function statusSummary(result: BalanceResult): { tone: StatusTone; label: string; detail: string } {
-  switch (result.status) {
-    case 'balanced':
-      return result.asGiven
-        ? {
-            tone: 'success',
-            label: 'Balanced as written',
-            detail: 'Your coefficients conserve every element and the charge.',
-          }
-        : {
-            tone: 'success',
-            label: 'Balanced',
-            detail: smallestWholeNumbers(result.terms.map((t) => t.coefficient))
-              ? 'Smallest whole-number coefficients that conserve every element and the charge.'
-              : 'Exact coefficients that conserve every element and the charge.',
-          };
+export function statusSummary(reply: BalanceResult): { tone: StatusTone; label: string; detail: string } {
+  switch (reply.status) {
+    case 'balanced': {
+      if (reply.asGiven)
+        return {
+          tone: 'success',
+          label: 'Balanced as written',
+          detail: 'Your coefficients conserve every element and the charge.',
+        };
+      const coefficients = reply.terms.map((t) => parseRational(t.coefficient));
+      const whole = coefficients.every((c) => c !== null) && smallestWholeNumbers(coefficients as Rat[]);
+      return {
+        tone: 'success',
+        label: 'Balanced',
+        detail: whole
+          ? 'Smallest whole-number coefficients that conserve every element and the charge.'
+          : 'Exact coefficients that conserve every element and the charge.',
+      };
+    }
     case 'multiple': {
-      const d = result.dimension ?? result.basis?.length ?? 0;
+      const d = reply.dimension ?? reply.basis?.length ?? 0;
       return {
         tone: 'warning',
         label: `Several balancings (${d} independent)`,
@@ -104,7 +147,7 @@ export function statusSummary(result: BalanceResult): { tone: StatusTone; label:
       return {
         tone: 'error',
         label: 'Cannot be balanced',
-        detail: result.reason ?? 'No positive coefficients conserve every element and the charge.',
+        detail: reply.reason ?? 'No positive coefficients conserve every element and the charge.',
       };
   }
 }
@@ -127,7 +170,7 @@ export interface MolarMassRow {
   note: string | null;
 }
 
-/** Molar masses of the terms, in input order. */
+/** Molar masses of the terms (per formula unit as written), in input order. */
 export function molarMassRows(terms: readonly SpeciesTerm[]): MolarMassRow[] {
   return terms.map((t, index) => {
     if (t.species.electron || Object.keys(t.species.composition).length === 0)

@@ -1,5 +1,6 @@
 import { defineStore } from 'pinia';
-import { computed, ref, watch } from 'vue';
+import { computed, ref } from 'vue';
+import { useLocalStorage } from '@vueuse/core';
 import type { Invitation, TeamMember, CreateInvitationInput } from '@shared/schemas/teams';
 import type { TeamRole } from '@shared/schemas/roles';
 import * as teamsApi from '@/api/teams';
@@ -7,18 +8,11 @@ import { useSessionStore } from './session';
 
 const STORAGE_KEY = 'thermoledger.team';
 
-function readStoredTeam(): string | null {
-  try {
-    return globalThis.localStorage?.getItem(STORAGE_KEY) ?? null;
-  } catch {
-    return null;
-  }
-}
-
 /** The team being worked in (remembered across visits) and its members and invitations. */
 export const useTeamsStore = defineStore('teams', () => {
   const session = useSessionStore();
-  const chosenTeamId = ref<string | null>(readStoredTeam());
+  // Remembered across visits; without storage (private mode) the choice lasts for this visit.
+  const chosenTeamId = useLocalStorage<string | null>(STORAGE_KEY, null, { writeDefaults: false });
   const members = ref<TeamMember[]>([]);
   const invitations = ref<Invitation[]>([]);
   const loadingMembers = ref(false);
@@ -29,14 +23,6 @@ export const useTeamsStore = defineStore('teams', () => {
     return teams.find((t) => t.id === chosenTeamId.value) ?? teams[0] ?? null;
   });
   const currentRole = computed<TeamRole | null>(() => currentTeam.value?.role ?? null);
-
-  watch(chosenTeamId, (id) => {
-    try {
-      if (id) globalThis.localStorage?.setItem(STORAGE_KEY, id);
-    } catch {
-      // Private mode or storage full: the choice just is not remembered.
-    }
-  });
 
   function choose(teamId: string): void {
     chosenTeamId.value = teamId;

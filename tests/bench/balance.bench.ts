@@ -1,5 +1,5 @@
 import { bench, describe } from 'vitest';
-import { balanceEquationText } from '@shared/chemistry';
+import { balanceRequest } from '@shared/chemistry';
 
 // Throughput target: ≥ 20,000 parse-and-balance per second for typical equations (≤ 8 species);
 // hard cases ≤ 2 ms each. Read the figures from `npm run bench` (hz = operations per second).
@@ -39,7 +39,7 @@ describe('parse and balance, typical equations (≤ 8 species)', () => {
   bench(
     '10 typical equations per iteration (equations/s = hz × 10)',
     () => {
-      for (const equation of TYPICAL) balanceEquationText({ equation });
+      for (const equation of TYPICAL) balanceRequest({ equation });
     },
     OPTIONS,
   );
@@ -50,7 +50,7 @@ describe('parse and balance, hard cases', () => {
     bench(
       name,
       () => {
-        balanceEquationText({ equation });
+        balanceRequest({ equation });
       },
       OPTIONS,
     );

@@ -3,7 +3,7 @@
 import { afterAll, bench, describe } from 'vitest';
 import { DEMO_PASSWORD, demoUsers, startTestApp } from '../server/helpers';
 
-const t = await startTestApp({ config: { calcRateLimitPerMinute: 10_000_000 } });
+const t = await startTestApp({ config: { calc: { requestsPerMinute: 10_000_000, linesPerMinute: 10_000_000 } } });
 const signIn = await fetch(`${t.url}/api/v1/session`, {
   method: 'POST',
   headers: { 'Content-Type': 'application/json' },

@@ -1,40 +1,60 @@
 import { describe, expect, it } from 'vitest';
-import { batchLines, chunkLines, equationLines, firstCsvField, guessDelimiter } from '@/lib/batch-lines';
+import { batchLines, chunkLines, equationLines } from '@/lib/batch-lines';
 
-describe('firstCsvField', () => {
-  it('takes the text up to the first comma', () =>
-    expect(firstCsvField('H2 + O2 -> H2O, combustion, 3')).toBe('H2 + O2 -> H2O'));
-  it('honours quotes and doubled quotes', () => {
-    expect(firstCsvField('"CH4 + O2 -> CO2 + H2O, ΔH = -890 kJ",note')).toBe('CH4 + O2 -> CO2 + H2O, ΔH = -890 kJ');
-    expect(firstCsvField('"say ""hi""",x')).toBe('say "hi"');
-  });
-  it('uses the given delimiter', () => expect(firstCsvField('N2 + H2 -> NH3;x', ';')).toBe('N2 + H2 -> NH3'));
-});
-
-describe('guessDelimiter', () => {
-  it('picks the most frequent of comma, semicolon and tab', () => {
-    expect(guessDelimiter('equation;note;id')).toBe(';');
-    expect(guessDelimiter('equation\tnote')).toBe('\t');
-    expect(guessDelimiter('equation,note')).toBe(',');
-    expect(guessDelimiter('H2 + O2 -> H2O')).toBe(',');
-  });
-});
-
-describe('batchLines', () => {
-  it('keeps original line numbers for text, including blanks and comments', () => {
-    expect(batchLines('A -> B\n\n# c\nC -> D', 'text')).toEqual([
+describe('batchLines (text)', () => {
+  it('keeps original line numbers, including blanks and comments', () => {
+    expect(batchLines('A -> B\n\n# c\r\nC -> D', 'text')).toEqual([
       { line: 1, text: 'A -> B' },
       { line: 2, text: '' },
       { line: 3, text: '# c' },
       { line: 4, text: 'C -> D' },
     ]);
   });
-  it('takes the first CSV column, drops a header row and handles CRLF and a BOM', () => {
+});
+
+describe('batchLines (csv, read by papaparse)', () => {
+  it('takes the first column, drops a header row and handles CRLF and a BOM', () => {
     const csv = '\uFEFFequation,note\r\nH2 + O2 -> H2O,water\r\n"C + O2 -> CO2",soot\r\n';
     expect(equationLines(batchLines(csv, 'csv'))).toEqual([
       { line: 2, text: 'H2 + O2 -> H2O' },
       { line: 3, text: 'C + O2 -> CO2' },
     ]);
+  });
+
+  it('honours quotes, doubled quotes and a comma inside a quoted equation', () => {
+    const csv = '"CH4 + O2 -> CO2 + H2O, ΔH = -890 kJ",note\n"say ""hi""",x';
+    expect(batchLines(csv, 'csv').map((l) => l.text)).toEqual(['CH4 + O2 -> CO2 + H2O, ΔH = -890 kJ', 'say "hi"']);
+  });
+
+  it('reads quoted fields that span several lines, keeping each record at the line where it starts', () => {
+    const csv = [
+      'equation,note',
+      'H2 + O2 -> H2O,"a note',
+      'on two lines"',
+      '"N2 + H2',
+      '-> NH3",ammonia',
+      'Fe + O2 -> Fe2O3,rust',
+    ].join('\r\n');
+    expect(equationLines(batchLines(csv, 'csv'))).toEqual([
+      { line: 2, text: 'H2 + O2 -> H2O' },
+      // An equation is one line: the break inside the quoted field becomes a space.
+      { line: 4, text: 'N2 + H2 -> NH3' },
+      { line: 6, text: 'Fe + O2 -> Fe2O3' },
+    ]);
+  });
+
+  it('guesses a semicolon or tab delimiter', () => {
+    expect(batchLines('equation;note\nN2 + H2 -> NH3;x', 'csv').map((l) => l.text)).toEqual(['', 'N2 + H2 -> NH3']);
+    expect(batchLines('N2 + H2 -> NH3\tx\nH2 + O2 -> H2O\ty', 'csv').map((l) => l.text)).toEqual([
+      'N2 + H2 -> NH3',
+      'H2 + O2 -> H2O',
+    ]);
+  });
+});
+
+describe('equationLines', () => {
+  it('skips blank lines and # comments as the core does', () => {
+    expect(equationLines(batchLines('  \n # x\nH2 -> H2', 'text'))).toEqual([{ line: 3, text: 'H2 -> H2' }]);
   });
 });
 

@@ -71,6 +71,28 @@ describe('validateForm', () => {
       errors: { email: 'Enter an e-mail address.', password: 'Use at least 10 characters.' },
     });
   });
+  it('puts plain words where the schema gives no message of its own', () => {
+    const bare = z.object({
+      current: z.string().min(1),
+      name: z.string().min(2).max(5),
+      email: z.email(),
+      days: z.number().int().min(1).max(3650),
+      role: z.enum(['viewer', 'member']),
+    });
+    expect(validateForm(bare, { current: '', name: 'x', email: 'nope', days: 0, role: 'boss' })).toEqual({
+      ok: false,
+      errors: {
+        current: 'Fill this in.',
+        name: 'Use at least 2 characters.',
+        email: 'Give an e-mail address, like name@lab.example.',
+        days: 'Use at least 1.',
+        role: 'Choose one of the offered values.',
+      },
+    });
+    expect(validateForm(bare, { name: 'toolong', days: 1.5 })).toMatchObject({
+      errors: { current: 'Fill this in.', name: 'Use at most 5 characters.', days: 'Give a whole number.' },
+    });
+  });
 });
 
 describe('formatDateTime', () => {

@@ -36,7 +36,7 @@ describe('useEquationInput', () => {
 
   it('marks a parse error at once and sends nothing', async () => {
     const { input, stop } = setUp('H2 + Xx2 -> H2O');
-    expect(input.problem.value).toMatchObject({ line: 1, column: 6 });
+    expect(input.problem.value).toMatchObject({ line: 1, column: 6, length: 2 });
     expect(input.problem.value?.message).toMatch(/Xx/);
     await vi.advanceTimersByTimeAsync(1000);
     expect(fetchMock).not.toHaveBeenCalled();
@@ -57,6 +57,8 @@ describe('useEquationInput', () => {
     expect(fetchMock).toHaveBeenCalledTimes(1);
     expect(JSON.parse(String(fetchMock.mock.calls[0]![1]?.body))).toEqual({ equation: 'H2 + O2 -> H2O' });
     expect(input.result.value?.equation).toBe('2 H2 + O2 -> 2 H2O');
+    // The reply is kept with the reading it answers.
+    expect(input.outcome.value?.reading.source).toBe('H2 + O2 -> H2O');
     expect(input.computedLocally.value).toBe(false);
     stop();
   });
@@ -82,6 +84,17 @@ describe('useEquationInput', () => {
     // Propane combustion, C3H8 + 5 O2 -> 3 CO2 + 4 H2O (common practice, no source).
     expect(input.result.value?.equation).toBe('C3H8 + 5 O2 -> 3 CO2 + 4 H2O');
     expect(input.computedLocally.value).toBe(true);
+    stop();
+  });
+
+  it('balances locally with the fixed coefficients and normalising term too', async () => {
+    fetchMock.mockRejectedValue(new TypeError('Failed to fetch'));
+    const { options, input, stop } = setUp('C + O2 -> CO + CO2');
+    options.value = { fixed: { '2': '2', '3': '1' }, normaliseTo: 0 };
+    await nextTick();
+    await vi.advanceTimersByTimeAsync(400);
+    // 3 C + 2 O2 → 2 CO + CO2 per mole of C (C: 3 = 2 + 1; O: 4 = 2 + 2).
+    expect(input.result.value?.terms.map((t) => t.coefficient)).toEqual(['1', '2/3', '2/3', '1/3']);
     stop();
   });
 

@@ -12,7 +12,7 @@ import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import { parseFormula } from '@shared/chemistry';
+import { parseFormula, ratToNumber } from '@shared/chemistry';
 import { loadNasaEntries, nasaEntryFor, nasaLabelsByKey } from '../../scripts/library/nasa-key-map';
 import { evaluateAtReference } from '../../scripts/library/nasa-polynomials';
 
@@ -303,8 +303,8 @@ describe('formation enthalpies against heats of combustion', () => {
 
   function closure(key: string, combustion: number) {
     const c = parseFormula(key).composition;
-    const a = c.C ?? 0;
-    const b = c.H ?? 0;
+    const a = c.C ? ratToNumber(c.C) : 0;
+    const b = c.H ? ratToNumber(c.H) : 0;
     const fuel = valueOf(key, 'dfH298', 'pedley-1986');
     const implied = a * co2.value + (b / 2) * h2o.value - combustion;
     // Combined ± in quadrature; the CRC table states none: ±0.05, half its last digit.

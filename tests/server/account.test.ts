@@ -101,3 +101,50 @@ describe('POST /api/v1/account/password', () => {
     expect((await elsewhere.get('/api/v1/session')).body.user).toBeNull();
   });
 });
+
+describe('API tokens and credential changes', () => {
+  it('refuses to create a token with a token (403), so a leaked token cannot mint replacements', async () => {
+    const token = await t.tokenFor('member');
+    const res = await request(t.url)
+      .post('/api/v1/account/tokens')
+      .set('Authorization', `Bearer ${token}`)
+      .send({ name: 'minted by a token' });
+    expect(res.status).toBe(403);
+    expect(res.body.error.message).toMatch(/API token cannot create tokens/);
+    const agent = await t.signIn('member');
+    expect((await agent.get('/api/v1/account/tokens')).body.tokens.map((x: { name: string }) => x.name)).not.toContain(
+      'minted by a token',
+    );
+  });
+
+  it('revokes every API token of the account when the password is changed', async () => {
+    const token = await t.tokenFor('member');
+    const bearer = { Authorization: `Bearer ${token}` };
+    expect((await request(t.url).get('/api/v1/account').set(bearer)).status).toBe(200);
+    const agent = await t.signIn('member');
+    const changed = await agent
+      .post('/api/v1/account/password')
+      .send({ currentPassword: DEMO_PASSWORD, newPassword: 'a-brand-new-password' });
+    expect(changed.status).toBe(204);
+    expect((await request(t.url).get('/api/v1/account').set(bearer)).status).toBe(401);
+    expect((await agent.get('/api/v1/account/tokens')).body.tokens).toEqual([]);
+  });
+
+  it('revokes every API token of the account when the password is reset by e-mail', async () => {
+    const token = await t.tokenFor('member');
+    const bearer = { Authorization: `Bearer ${token}` };
+    expect((await t.anon().post('/api/v1/password-resets').send({ email: demoUsers.member })).status).toBe(202);
+    await t.settle();
+    const mail = t.mail.list().find((m) => m.to.includes(demoUsers.member))!;
+    expect(mail.text).toMatch(/revokes all its API tokens/);
+    const resetToken = new URL(
+      mail.text.split(/\s+/).find((w) => w.includes('/reset-password?token='))!,
+    ).searchParams.get('token')!;
+    const done = await t
+      .anon()
+      .post('/api/v1/password-resets/complete')
+      .send({ token: resetToken, password: 'a-brand-new-password' });
+    expect(done.status).toBe(204);
+    expect((await request(t.url).get('/api/v1/account').set(bearer)).status).toBe(401);
+  });
+});

@@ -3,7 +3,8 @@ import { z } from 'zod';
 import type TestAgent from 'supertest/lib/agent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { teamRoleAtLeast, type SiteRole, type TeamRole } from '@shared/schemas/roles';
-import { defineRoute, routeKey, type Access, type AnyRoute } from '../../server/routes/registry';
+import type { Access } from '@shared/schemas/access';
+import { defineRoute, routeKey, type AnyRoute } from '../../server/routes/registry';
 import { startTestApp, type TestApp } from './helpers';
 
 // The library (curator routes) does not exist yet; this route exercises {site:'curator'} meanwhile.

@@ -6,7 +6,7 @@ import { startTestApp, type TestApp } from './helpers';
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await startTestApp({ config: { calcRateLimitPerMinute: 40 } });
+  t = await startTestApp({ config: { calc: { requestsPerMinute: 40 } } });
 });
 afterAll(async () => t?.close());
 

@@ -8,37 +8,70 @@ import type TestAgent from 'supertest/lib/agent';
 import { createApp, type ThermoledgerApp } from '../../server/app';
 import { openDatabase, type OpenDatabase } from '../../server/db/client';
 import { runMigrations } from '../../server/db/migrate';
-import { DEMO_PASSWORD, seedDemo } from '../../server/db/seed';
-import type { AppConfig } from '../../server/env';
+import pino from 'pino';
+import { demoAccounts, PUBLISHED_DEMO_PASSWORD, type DemoAccountKey } from '../../seeds/demo/demo-seed';
+import { seedDemo } from '../../server/db/seed';
+import { configFromEnv, readEnv, type AppConfig } from '../../server/env';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
-import { createMailer } from '../../server/mail/mailer';
+import { createMailer, type Mailer, type MailMessage } from '../../server/mail/mailer';
 import type { AnyRoute } from '../../server/routes/registry';
 
-/** The demo accounts by the role they play in tests. */
-export const demoUsers = {
-  viewer: 'vera.viewer@kestrel.example',
-  member: 'milo.member@kestrel.example',
-  team_admin: 'tara.admin@kestrel.example',
-  curator: 'cora.curator@kestrel.example',
-  site_admin: 'sam.siteadmin@kestrel.example',
-  other_team: 'lena.larch@larchmont.example',
-} as const;
-export type DemoRole = keyof typeof demoUsers;
-export { DEMO_PASSWORD };
+/** The demo accounts by the role they play in tests (seeds/demo is the one list). */
+export const demoUsers = demoAccounts;
+export type DemoRole = DemoAccountKey;
+/** Tests seed the demo accounts explicitly, with the published password. */
+export const DEMO_PASSWORD = PUBLISHED_DEMO_PASSWORD;
 
-/** Configuration for tests: production-like, with generous sign-in limits unless a test lowers them. */
-export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
-  return {
-    nodeEnv: 'test',
-    publicUrl: 'http://thermoledger.test',
-    trustProxy: false,
-    signIn: { maxFailuresPerAccount: 5, maxFailuresPerAddress: 20, windowSeconds: 900 },
-    calcRateLimitPerMinute: 600,
-    session: { ttlMs: 30 * 86_400_000, idleMs: 72 * 3_600_000 },
-    checkResponses: true,
-    version: 'test',
-    ...overrides,
-  };
+type DeepPartial<T> = {
+  [K in keyof T]?: T[K] extends object ? (T[K] extends unknown[] ? T[K] : DeepPartial<T[K]>) : T[K];
+};
+
+function merge<T>(base: T, overrides: DeepPartial<T>): T {
+  const out = { ...base } as Record<string, unknown>;
+  for (const [key, value] of Object.entries(overrides as Record<string, unknown>)) {
+    const current = out[key];
+    out[key] =
+      value && typeof value === 'object' && !Array.isArray(value) && current && typeof current === 'object'
+        ? merge(current, value as DeepPartial<typeof current>)
+        : value;
+  }
+  return out as T;
+}
+
+/** Configuration for tests: the documented defaults, quiet logs, two calculation workers; tests override parts. */
+export function testConfig(overrides: DeepPartial<AppConfig> = {}): AppConfig {
+  const defaults = configFromEnv(
+    readEnv({ NODE_ENV: 'test', PUBLIC_URL: 'http://thermoledger.test', CALC_WORKERS: '2' }),
+  );
+  return merge({ ...defaults, logLevel: 'silent', version: 'test' }, overrides);
+}
+
+/**
+ * A mailer wrapper whose delivery a test can steer: deliver (default), fail every message, or
+ * hold messages until released (to show that a reply does not wait for its e-mail).
+ */
+export class SteerableMailer implements Mailer {
+  mode: 'deliver' | 'fail' | 'hold' = 'deliver';
+  private held: { message: MailMessage; resolve: () => void; reject: (e: Error) => void }[] = [];
+  constructor(private readonly inner: Mailer) {}
+  get outbox() {
+    return this.inner.outbox;
+  }
+  send(message: MailMessage): Promise<void> {
+    if (this.mode === 'fail') return Promise.reject(new Error('SMTP 451: mail server unavailable (test)'));
+    if (this.mode === 'hold') return new Promise((resolve, reject) => this.held.push({ message, resolve, reject }));
+    return this.inner.send(message);
+  }
+  /** Messages waiting in 'hold' mode. */
+  get waiting(): number {
+    return this.held.length;
+  }
+  /** Sends what was held and goes back to delivering. */
+  async release(): Promise<void> {
+    this.mode = 'deliver';
+    const held = this.held.splice(0);
+    for (const h of held) await this.inner.send(h.message).then(h.resolve, h.reject);
+  }
 }
 
 /** A fresh database for one test file: in-memory PGlite, or (DATABASE_URL set) a new database on that server. */
@@ -84,9 +117,15 @@ export interface TestApp {
   db: OpenDatabase['db'];
   /** The fake SMTP server (port 0) capturing every message the app sends. */
   mail: FakeSmtp;
+  /** The mailer the app uses: set `mailer.mode` to make sending fail or wait. */
+  mailer: SteerableMailer;
+  /** Log lines written so far (JSON objects), when started with captureLog. */
+  logLines(): Record<string, unknown>[];
+  /** Waits for work queued after replies (e-mails) to finish. */
+  settle(): Promise<void>;
   config: AppConfig;
   ids: DemoIds;
-  /** Empties every table, reseeds the demo data, clears mail and rate-limit counters. */
+  /** Empties every table, reseeds the demo data, clears mail, mail steering and rate-limit counters. */
   reset(): Promise<void>;
   /** An agent signed in as the demo user, sending our own Origin header (as a browser would). */
   signIn(role: DemoRole): Promise<TestAgent>;
@@ -119,16 +158,35 @@ async function readIds(open: OpenDatabase): Promise<DemoIds> {
  * Call once per test file (beforeAll) and `reset()` between tests.
  */
 export async function startTestApp(
-  options: { config?: Partial<AppConfig>; extraRoutes?: readonly AnyRoute[]; open?: OpenDatabase } = {},
+  options: {
+    config?: DeepPartial<AppConfig>;
+    extraRoutes?: readonly AnyRoute[];
+    open?: OpenDatabase;
+    clientDir?: string | null;
+    captureLog?: boolean;
+  } = {},
 ): Promise<TestApp> {
   const open = options.open ?? (await openTestDatabase());
   const mail = await startFakeSmtp({ port: 0 });
-  const mailer = createMailer(
-    { host: mail.host, port: mail.port, secure: false, from: 'Thermoledger <no-reply@thermoledger.test>' },
-    mail,
+  const mailer = new SteerableMailer(
+    createMailer(
+      { host: mail.host, port: mail.port, secure: false, from: 'Thermoledger <no-reply@thermoledger.test>' },
+      mail,
+    ),
   );
   const config = testConfig(options.config);
-  const app = createApp({ db: open.db, mailer, config, clientDir: null, extraRoutes: options.extraRoutes ?? [] });
+  const lines: string[] = [];
+  const logger = options.captureLog
+    ? pino({ level: 'info', base: undefined }, { write: (line: string) => void lines.push(line) })
+    : undefined;
+  const app = createApp({
+    db: open.db,
+    mailer,
+    config,
+    clientDir: options.clientDir ?? null,
+    extraRoutes: options.extraRoutes ?? [],
+    logger,
+  });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -142,13 +200,18 @@ export async function startTestApp(
     open,
     db: open.db,
     mail,
+    mailer,
     config,
     ids: await readIds(open),
+    logLines: () => lines.map((l) => JSON.parse(l) as Record<string, unknown>),
+    settle: () => app.locals.deps.jobs.drain(),
     async reset() {
+      await app.locals.deps.jobs.drain();
       await open.db.execute(sql.raw(`truncate ${TABLES} restart identity cascade`));
       await seedDemo(open.db);
       t.ids = await readIds(open);
       mail.clear();
+      mailer.mode = 'deliver';
       app.locals.deps.limits.reset();
     },
     anon,
@@ -167,6 +230,7 @@ export async function startTestApp(
     async close() {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await app.locals.close();
       await mail.close();
       await open.close();
     },

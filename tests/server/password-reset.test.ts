@@ -11,6 +11,7 @@ beforeEach(async () => t.reset());
 async function requestReset(email: string): Promise<string> {
   const res = await t.anon().post('/api/v1/password-resets').send({ email });
   expect(res.status).toBe(202);
+  await t.settle(); // the e-mail goes out after the reply
   const mail = lastMailTo(t.mail, email);
   expect(mail.subject).toBe('Reset your Thermoledger password');
   const link = linkIn(mail.text, `${t.config.publicUrl}/reset-password?token=`);
@@ -69,6 +70,7 @@ describe('password reset by e-mail', () => {
   it('answers 202 for an unknown address too, and sends nothing', async () => {
     const res = await t.anon().post('/api/v1/password-resets').send({ email: 'nobody@nowhere.example' });
     expect(res.status).toBe(202);
+    await t.settle();
     expect(t.mail.list()).toHaveLength(0);
   });
 
@@ -97,5 +99,52 @@ describe('password reset by e-mail', () => {
     expect(rows).toHaveLength(1);
     expect(rows[0]!.tokenHash).not.toContain(token);
     expect(rows[0]!.tokenHash).toMatch(/^[0-9a-f]{64}$/);
+  });
+});
+
+describe('POST /api/v1/password-resets does not tell who has an account', () => {
+  it('replies before the e-mail is sent, the same way for a known and an unknown address', async () => {
+    t.mailer.mode = 'hold'; // the mail server accepts nothing until released
+    const known = await t.anon().post('/api/v1/password-resets').send({ email: demoUsers.member });
+    const unknown = await t.anon().post('/api/v1/password-resets').send({ email: 'nobody@kestrel.example' });
+    for (const res of [known, unknown]) {
+      expect(res.status).toBe(202);
+      expect(res.text).toBe('');
+    }
+    expect(Object.keys(known.headers).sort()).toEqual(Object.keys(unknown.headers).sort());
+    // The reply for the real account came back while its e-mail was still waiting to be sent.
+    while (t.mailer.waiting === 0) await new Promise((r) => setTimeout(r, 10));
+    expect(t.mail.list()).toHaveLength(0);
+    await t.mailer.release();
+    await t.settle();
+    expect(t.mail.list().map((m) => m.to)).toEqual([[demoUsers.member]]);
+  });
+
+  it('limits reset e-mails per account: 100 requests put 3 mails in the outbox, then 429', async () => {
+    const statuses: number[] = [];
+    for (let i = 0; i < 100; i++) {
+      statuses.push((await t.anon().post('/api/v1/password-resets').send({ email: demoUsers.member })).status);
+    }
+    await t.settle();
+    expect(statuses.slice(0, 3)).toEqual([202, 202, 202]);
+    expect(statuses.slice(3).every((s) => s === 429)).toBe(true);
+    expect(t.mail.list().filter((m) => m.to.includes(demoUsers.member))).toHaveLength(3);
+  });
+
+  it('limits reset e-mails per network address across accounts, counting unknown addresses too', async () => {
+    const replies = await Promise.all(
+      Array.from({ length: 30 }, (_, i) =>
+        t
+          .anon()
+          .post('/api/v1/password-resets')
+          .send({ email: `someone.${i}@kestrel.example` }),
+      ),
+    );
+    const statuses = replies.map((r) => r.status);
+    expect(statuses.filter((s) => s === 202)).toHaveLength(10);
+    expect(statuses.filter((s) => s === 429)).toHaveLength(20);
+    const refused = replies.find((r) => r.status === 429)!;
+    expect(refused.body.error.message).toMatch(/your network address/);
+    expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0);
   });
 });

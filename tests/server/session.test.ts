@@ -50,7 +50,7 @@ describe('POST /api/v1/session', () => {
   it('marks the cookie Secure when the request came over HTTPS through a trusted proxy', async () => {
     const { startTestApp: start } = await import('./helpers');
     // Reuse this file's database; only the proxy setting differs.
-    const proxied = await start({ open: { ...t.open, close: async () => {} }, config: { trustProxy: true } });
+    const proxied = await start({ open: { ...t.open, close: async () => {} }, config: { trustProxy: 1 } });
     try {
       const res = await proxied
         .anon()
@@ -172,4 +172,75 @@ describe('DELETE /api/v1/session', () => {
     const replay = await t.anon().get('/api/v1/account').set('Cookie', cookie);
     expect(replay.status).toBe(401);
   });
+});
+
+describe('POST /api/v1/session under parallel attempts', () => {
+  const attempt = (email: string, password: string) => t.anon().post('/api/v1/session').send({ email, password });
+
+  async function failedSignInsFor(email: string): Promise<number> {
+    const { auditLog } = await import('../../server/db/tables/index');
+    const rows = await t.db.select().from(auditLog);
+    return rows.filter((r) => r.action === 'sign_in.failed' && r.actorEmail === email).length;
+  }
+
+  it('checks no more than the account limit of wrong passwords when 30 arrive at once', async () => {
+    const replies = await Promise.all(Array.from({ length: 30 }, (_, i) => attempt(demoUsers.viewer, `wrong-${i}`)));
+    const statuses = replies.map((r) => r.status);
+    expect(statuses.filter((s) => s === 401)).toHaveLength(5);
+    expect(statuses.filter((s) => s === 429)).toHaveLength(25);
+    // Only the five reserved attempts reached the password check.
+    expect(await failedSignInsFor(demoUsers.viewer)).toBe(5);
+  }, 120_000);
+
+  it('does not let the right password through when it arrives among 60 parallel guesses', async () => {
+    const replies = await Promise.all(
+      Array.from({ length: 60 }, (_, i) => attempt(demoUsers.member, i === 49 ? DEMO_PASSWORD : `guess-${i}`)),
+    );
+    const statuses = replies.map((r) => r.status);
+    // At most five attempts were checked; unless the right one was among them, nobody got in.
+    expect(statuses.filter((s) => s !== 429).length).toBeLessThanOrEqual(5);
+    const checked = replies.filter((r) => r.status !== 429);
+    expect(checked.length).toBeGreaterThan(0);
+    if (replies[49]!.status === 429) expect(statuses).not.toContain(200);
+    expect(statuses.filter((s) => s === 200).length).toBeLessThanOrEqual(1);
+  }, 120_000);
+
+  /** The same database, with small sign-in limits (argon2 is slow on purpose, so fewer attempts keep the test short). */
+  async function withSmallLimits(run: (app: TestApp) => Promise<void>): Promise<void> {
+    const { startTestApp: start } = await import('./helpers');
+    const small = await start({
+      open: { ...t.open, close: async () => {} },
+      config: { signIn: { maxFailuresPerAccount: 2, maxFailuresPerAddress: 4 } },
+    });
+    try {
+      await run(small);
+    } finally {
+      await small.close();
+    }
+  }
+
+  it('checks no more than the address limit across many accounts from one address', async () => {
+    await withSmallLimits(async (small) => {
+      const emails = Array.from({ length: 12 }, (_, i) => `guess.${i}@kestrel.example`);
+      const replies = await Promise.all(
+        emails.map((email) => small.anon().post('/api/v1/session').send({ email, password: 'not the password' })),
+      );
+      const statuses = replies.map((r) => r.status);
+      expect(statuses.filter((s) => s === 401)).toHaveLength(4);
+      expect(statuses.filter((s) => s === 429)).toHaveLength(8);
+      expect(replies.find((r) => r.status === 429)!.body.error.message).toMatch(/your network address/);
+    });
+  }, 120_000);
+
+  it('gives a successful sign-in its attempt back, so a user who types the password right is never counted', async () => {
+    await withSmallLimits(async (small) => {
+      for (let i = 0; i < 6; i++) {
+        const res = await small
+          .anon()
+          .post('/api/v1/session')
+          .send({ email: demoUsers.member, password: DEMO_PASSWORD });
+        expect(res.status).toBe(200);
+      }
+    });
+  }, 120_000);
 });

@@ -1,7 +1,7 @@
 import { combineRoutes, type RouteCombination } from './combine';
 import { routeCovariance } from './covariance';
 import type { HessNetwork } from './network';
-import { findRoutes } from './routes';
+import { findRoutes, findRoutesAsync } from './routes';
 import type { InputInfo, Route, RouteSearchOptions, RouteSearchResult, SignedTerm } from './types';
 
 /**
@@ -34,7 +34,23 @@ export function deriveEnthalpy(
   inputs: ReadonlyMap<string, InputInfo>,
   options: RouteSearchOptions,
 ): Derivation {
-  const { routes, ...search } = findRoutes(network, target, inputs, options);
+  return assess(findRoutes(network, target, inputs, options), inputs);
+}
+
+/** `deriveEnthalpy` with the search in slices separated by `pause()` (see findRoutesAsync). */
+export async function deriveEnthalpyAsync(
+  network: HessNetwork,
+  target: readonly SignedTerm[],
+  inputs: ReadonlyMap<string, InputInfo>,
+  options: RouteSearchOptions,
+  pause: () => Promise<void>,
+): Promise<Derivation> {
+  return assess(await findRoutesAsync(network, target, inputs, options, pause), inputs);
+}
+
+/** Agreement, combination and headline value of the routes a search found. */
+function assess(result: RouteSearchResult, inputs: ReadonlyMap<string, InputInfo>): Derivation {
+  const { routes, ...search } = result;
   if (routes.length === 0) {
     return {
       status: 'unreachable',

@@ -19,11 +19,11 @@ export type {
 } from './types';
 export { buildHessNetwork, extendHessNetwork } from './network';
 export type { HessNetwork, NetworkSpecies } from './network';
-export { findRoutes, compareRoutes } from './routes';
+export { findRoutes, findRoutesAsync, compareRoutes } from './routes';
 export { routeWeights, routeUncertainty, routeCovariance } from './covariance';
 export { combineRoutes, AGREEMENT_SIGNIFICANCE, ROUTE_FLAG_SIGMAS } from './combine';
 export type { RouteCombination } from './combine';
-export { deriveEnthalpy } from './derive';
+export { deriveEnthalpy, deriveEnthalpyAsync } from './derive';
 export type { Derivation } from './derive';
 export { consistencyFit, UndeterminedFitError, FLAG_SIGMAS } from './consistency';
 export type {

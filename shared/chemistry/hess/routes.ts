@@ -116,6 +116,38 @@ export function findRoutes(
   inputs: ReadonlyMap<string, InputInfo>,
   options: RouteSearchOptions,
 ): RouteSearchResult {
+  const run = routeSearch(network, target, inputs, options);
+  for (;;) {
+    const step = run.next();
+    if (step.done) return step.value;
+  }
+}
+
+/**
+ * `findRoutes` in slices: after every slice of work it awaits `pause()`, so a server can answer
+ * other requests while a long search runs (the time budget still bounds the whole search).
+ */
+export async function findRoutesAsync(
+  network: HessNetwork,
+  target: readonly SignedTerm[],
+  inputs: ReadonlyMap<string, InputInfo>,
+  options: RouteSearchOptions,
+  pause: () => Promise<void>,
+): Promise<RouteSearchResult> {
+  const run = routeSearch(network, target, inputs, options);
+  for (;;) {
+    const step = run.next();
+    if (step.done) return step.value;
+    await pause();
+  }
+}
+
+function* routeSearch(
+  network: HessNetwork,
+  target: readonly SignedTerm[],
+  inputs: ReadonlyMap<string, InputInfo>,
+  options: RouteSearchOptions,
+): Generator<void, RouteSearchResult, void> {
   const targetVector = toVector(target);
   const vectors = new Map<number, Map<string, Fraction>>();
   const vectorAt = (index: number) => {
@@ -187,8 +219,10 @@ export function findRoutes(
     routes.set(signature, { steps, deltaH, weights, uncertainty, missing });
   };
 
-  const search = (chosen: number[], openTarget: ReadonlySet<string>) => {
+  // A generator so that a caller can pause between slices of work (see findRoutesAsync).
+  function* search(chosen: number[], openTarget: ReadonlySet<string>): Generator<void, void, void> {
     if (stop()) return;
+    if ((examined & 127) === 127) yield;
     const key = `${[...openTarget].sort().join(',')}#${[...chosen].sort((a, b) => a - b).join(',')}`;
     if (visited.has(key)) return;
     visited.add(key);
@@ -228,16 +262,16 @@ export function findRoutes(
     }
     const ordered = [...next.candidates].sort((a, b) => uncertaintyRank(a) - uncertaintyRank(b) || a - b);
     for (const index of ordered) {
-      search([...chosen, index], openTarget);
+      yield* search([...chosen, index], openTarget);
       if (stoppedBy) return;
     }
-  };
+  }
 
   // First every target species with a ΔfH° closed by it (the tabulated route), then with one,
   // two… of them derived through measured reactions instead: independent routes to compare.
   const closableTarget = [...targetVector.keys()].filter(closable).sort();
   for (const openTarget of subsetsBySize(closableTarget)) {
-    search([], new Set(openTarget));
+    yield* search([], new Set(openTarget));
     if (stoppedBy) break;
   }
 

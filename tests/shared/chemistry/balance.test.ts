@@ -2,19 +2,35 @@ import { describe, expect, it } from 'vitest';
 import {
   BalanceInputError,
   balanceEquationText,
+  balanceRequest,
+  DEFAULT_WORK_LIMITS,
   EquationParseError,
-  elementBalanceTable,
-  parseEquation,
 } from '@shared/chemistry';
-import type { BalanceResult } from '@shared/chemistry';
-import { balanceResultSchema } from '@shared/schemas/balance';
+import { balanceResultSchema, type BalanceResult } from '@shared/schemas/balance';
+import { text } from './support';
 
 const coefficients = (r: BalanceResult): string[] => r.terms.map((t) => t.coefficient);
+/** The API reply for an equation (through the one adapter), checked against the public schema. */
 const balance = (equation: string, extra: object = {}): BalanceResult => {
-  const r = balanceEquationText({ equation, ...extra });
-  expect(balanceResultSchema.safeParse(r).success).toBe(true); // the public API shape
+  const r = balanceRequest({ equation, ...extra });
+  expect(balanceResultSchema.safeParse(r).success).toBe(true);
   return r;
 };
+
+/** Σ coefficient × atoms on each side, per element, with compositions written out by hand in the test. */
+function conservedWith(
+  compositions: Array<Record<string, number>>,
+  sides: Array<1 | -1>,
+  coefficients: string[],
+): boolean {
+  const totals = new Map<string, bigint>();
+  compositions.forEach((composition, j) => {
+    for (const [symbol, count] of Object.entries(composition)) {
+      totals.set(symbol, (totals.get(symbol) ?? 0n) + BigInt(sides[j]!) * BigInt(count) * BigInt(coefficients[j]!));
+    }
+  });
+  return [...totals.values()].every((v) => v === 0n);
+}
 
 describe('balanceEquationText — textbook worked examples', () => {
   it('balances the combustion of octane', () => {
@@ -144,17 +160,11 @@ describe('balanceEquationText — outcomes', () => {
     expect(r.status).toBe('multiple');
     expect(r.dimension).toBe(2);
     expect(r.basis).toHaveLength(2);
-    for (const v of r.basis!) {
-      const table = elementBalanceTable(
-        r.terms.map((t, j) => ({
-          composition: parseEquation('C + O2 -> CO + CO2').terms[j]!.species.composition,
-          charge: 0,
-          side: t.side,
-          coefficient: v[j]!,
-        })),
-      );
-      expect(table.every((row) => row.reactants === row.products)).toBe(true);
-    }
+    expect(r.basisTruncated).toBe(false);
+    // C, O2, CO, CO2 written out by hand.
+    const species: Array<Record<string, number>> = [{ C: 1 }, { O: 2 }, { C: 1, O: 1 }, { C: 1, O: 2 }];
+    for (const v of r.basis!) expect(conservedWith(species, [1, 1, -1, -1], v)).toBe(true);
+    expect(conservedWith(species, [1, 1, -1, -1], coefficients(r))).toBe(true);
     const chosen = balance('C + O2 -> CO + CO2', { fixed: { '2': '2', '3': '1' } });
     expect([chosen.status, coefficients(chosen)]).toEqual(['balanced', ['3', '2', '2', '1']]);
     const half = balance('C + O2 -> CO + CO2', { fixed: { '3': '1/2' } });
@@ -184,9 +194,11 @@ describe('balanceEquationText — outcomes', () => {
   });
 
   it('says which species would have to vanish', () => {
-    const r = balance('H2 + O2 + He -> H2O');
+    // H: 2a = 2b and O: a = b + 2c leave c = 0 for O2.
+    const r = balance('H2O -> H2O + O2');
     expect(r.status).toBe('impossible');
-    expect(r.reason).toMatch(/He/);
+    expect(r.reason).toBe('O2 (term 2) would have to vanish: every balancing gives it coefficient 0.');
+    expect(balance('H2 + O2 + He -> H2O').reason).toMatch(/Helium \(He\) appears only among the reactants/);
   });
 
   it('says when only zero coefficients balance', () => {
@@ -209,7 +221,12 @@ describe('balanceEquationText — outcomes', () => {
     // Basis (free columns left to right) has negative entries; the sum is checked, then the exact LP.
     const r = balance('H2O + O2 -> H2O2 + O3 + H2');
     expect(r.status).toBe('multiple');
-    expect(r.terms.every((t) => /^\d+$/.test(t.coefficient) && t.coefficient !== '0')).toBe(true);
+    expect(r.basis!.some((v) => v.some((x) => x.startsWith('-')))).toBe(true);
+    const found = coefficients(r);
+    expect(found.every((c) => /^[1-9]\d*$/.test(c))).toBe(true);
+    // H2O, O2, H2O2, O3, H2 written out by hand: the example must conserve H and O.
+    const species: Array<Record<string, number>> = [{ H: 2, O: 1 }, { O: 2 }, { H: 2, O: 2 }, { O: 3 }, { H: 2 }];
+    expect(conservedWith(species, [1, 1, -1, -1, -1], found)).toBe(true);
   });
 
   it('drops ΔH with a warning when the answer is not a multiple of the typed equation', () => {
@@ -221,7 +238,7 @@ describe('balanceEquationText — outcomes', () => {
   it('rejects bad fixed and normaliseTo fields with their field path', () => {
     const field = (extra: object): unknown => {
       try {
-        balanceEquationText({ equation: 'C + O2 -> CO + CO2', ...extra });
+        balanceEquationText('C + O2 -> CO + CO2', extra);
       } catch (err) {
         expect(err).toBeInstanceOf(BalanceInputError);
         return ((err as BalanceInputError).details as { issues: Array<{ path: string[] }> }).issues[0]!.path;
@@ -237,6 +254,116 @@ describe('balanceEquationText — outcomes', () => {
   });
 
   it('throws EquationParseError for unreadable text', () => {
-    expect(() => balanceEquationText({ equation: 'H2 + Qq -> H2' })).toThrow(EquationParseError);
+    expect(() => balanceEquationText('H2 + Qq -> H2')).toThrow(EquationParseError);
+  });
+});
+
+describe('balanceEquationText — the model', () => {
+  it('returns exact coefficients, the reading and the answer as data', () => {
+    const b = balanceEquationText('C3H8(g) + O2(g) -> CO2(g) + H2O(l)');
+    expect(b.status).toBe('balanced');
+    // C3H8 + 5 O2 → 3 CO2 + 4 H2O (common practice, no source).
+    expect(b.equation.terms.map((t) => text(t.coefficient))).toEqual(['1', '5', '3', '4']);
+    expect(b.reading.terms.map((t) => text(t.coefficient))).toEqual(['1', '1', '1', '1']);
+    expect(b.equation.terms[1]!.species).toBe(b.reading.terms[1]!.species);
+    expect(b.reading.terms[1]!.species.span).toEqual({ start: 10, end: 12, column: 11 });
+    expect(b.givenTotals!.map((row) => [row.element, text(row.reactants), text(row.products)])).toEqual([
+      ['C', '3', '1'],
+      ['H', '8', '2'],
+      ['O', '2', '3'],
+    ]);
+  });
+
+  it('gives the reason for an impossible equation as data with the words beside it', () => {
+    const oneSide = balanceEquationText('H2 + Cl2 -> HCl + O2').impossible!;
+    expect(oneSide).toMatchObject({ kind: 'one_side', elements: [{ element: 'O', side: 'product' }], charge: null });
+    const charge = balanceEquationText('Fe -> Fe^2+').impossible!;
+    expect(charge).toMatchObject({ kind: 'one_side', charge: { reactants: 'none', products: 'positive' } });
+    expect(balanceEquationText('H2O2 + O2 -> H2O').impossible).toMatchObject({ kind: 'must_change_side', terms: [1] });
+    // H: 2a = 2b, O: a = b + 2c, so O2 is 0 in the only balancing.
+    expect(balanceEquationText('H2O -> H2O + O2').impossible).toMatchObject({ kind: 'must_vanish', terms: [2] });
+    expect(balanceEquationText('H2O -> H2O2').impossible).toMatchObject({ kind: 'only_zero', conserved: ['H', 'O'] });
+    expect(balanceEquationText('H2O2 + O2 + O3 -> H2O').impossible?.kind).toBe('no_positive_balancing');
+    expect(balance('H2O2 + O2 -> H2O').impossible).toEqual({ code: 'must_change_side', terms: [1] });
+  });
+
+  it('keeps reading warnings apart from balancing warnings, and marks them on the wire', () => {
+    const b = balanceEquationText('Fe3+ + O2 -> Fe3+ + O2, ΔH = 5 kJ');
+    expect(b.reading.warnings.map((w) => w.code)).toEqual(['ambiguous_charge', 'ambiguous_charge']);
+    expect(b.warnings.map((w) => w.code)).toEqual(['other_balancings']);
+    expect(balance('Fe3+ + O2 -> Fe3+ + O2, ΔH = 5 kJ').warnings.map((w) => [w.code, w.stage])).toEqual([
+      ['ambiguous_charge', 'reading'],
+      ['ambiguous_charge', 'reading'],
+      ['other_balancings', 'balancing'],
+    ]);
+  });
+});
+
+describe('balanceEquationText — fractional formula units', () => {
+  it('balances the hemihydrate exactly, with fractional counts scaled per row', () => {
+    // CaSO4·2H2O → CaSO4·½H2O + 3/2 H2O, i.e. 2 : 2 : 3 in whole numbers (common practice, no source).
+    expect(coefficients(balance('CaSO4·2H2O(s) -> CaSO4·½H2O(s) + H2O(g)'))).toEqual(['2', '2', '3']);
+    expect(coefficients(balance('CaSO4·0.5H2O + H2O -> CaSO4·2H2O'))).toEqual(['2', '3', '2']);
+    expect(coefficients(balance('CaSO4·1/2H2O(s) -> CaSO4(s) + H2O(g)', { normaliseTo: 0 }))).toEqual([
+      '1',
+      '1',
+      '1/2',
+    ]);
+    // The doubled unit written whole-number style balances the same way.
+    expect(coefficients(balance('CaSO4·2H2O -> (CaSO4)2·H2O + H2O'))).toEqual(['2', '1', '3']);
+  });
+
+  it('keeps the typed coefficients when they balance with a fractional unit', () => {
+    const r = balance('CaSO4·2H2O -> CaSO4·½H2O + 3/2 H2O');
+    expect([r.status, r.asGiven, coefficients(r)]).toEqual(['balanced', true, ['1', '1', '3/2']]);
+    expect(r.terms[1]!.composition).toEqual({ Ca: '1', S: '1', O: '9/2', H: '1' });
+    expect(r.equation).toBe('CaSO4·2H2O -> CaSO4·1/2H2O + 3/2 H2O');
+  });
+});
+
+describe('balanceEquationText — ΔH that cannot be scaled', () => {
+  it('refuses a ΔH that overflows when normalised, naming normaliseTo, instead of answering Infinity', () => {
+    let caught: unknown;
+    try {
+      // 1 mol of O2 doubles the equation as typed: 2 × 1.7e308 is beyond the largest double.
+      balanceEquationText('H2 + 1/2 O2 -> H2O, ΔH = 1.7e308 kJ/mol', { normaliseTo: 1 });
+    } catch (err) {
+      caught = err;
+    }
+    expect(caught).toBeInstanceOf(BalanceInputError);
+    expect((caught as BalanceInputError).field).toBe('normaliseTo');
+    expect((caught as BalanceInputError).message).toMatch(/ΔH too large/);
+  });
+
+  it('names the fixed coefficient when that is what scales ΔH out of range', () => {
+    expect(() => balanceEquationText('H2 + 1/2 O2 -> H2O, ΔH = -1.7e308 kJ', { fixed: { '1': '2' } })).toThrow(
+      expect.objectContaining({ field: 'fixed.1' }),
+    );
+  });
+
+  it('refuses a stated ΔH that is not finite in kJ as a parse error', () => {
+    expect(() => balanceEquationText('H2 + O2 -> H2O2, ΔH = 1e308 kcal')).toThrow(EquationParseError);
+    expect(() => balanceEquationText('H2 + O2 -> H2O2 + 1e308 kJ + 1e308 kJ')).toThrow(EquationParseError);
+  });
+
+  it('keeps a large but finite ΔH when it does not overflow', () => {
+    expect(balance('H2 + 1/2 O2 -> H2O, ΔH = 1e300 kJ', { normaliseTo: 0 }).enthalpy?.value).toBe(1e300);
+  });
+});
+
+describe('balanceEquationText — the basis limit', () => {
+  it(`lists at most ${DEFAULT_WORK_LIMITS.maxBasisVectors} basis vectors, with the dimension, a flag and a warning`, () => {
+    // 40 hydrocarbons burnt to CO2 and H2O: 43 terms, 3 independent conservation rows, so 40 balancings.
+    const fuels = Array.from({ length: 40 }, (_, i) => `C${i + 1}H${2 * i + 4}`);
+    const r = balance(`${fuels.join(' + ')} + O2 -> CO2 + H2O`);
+    expect(r.status).toBe('multiple');
+    expect(r.dimension).toBe(40);
+    expect(r.basis).toHaveLength(DEFAULT_WORK_LIMITS.maxBasisVectors);
+    expect(r.basisTruncated).toBe(true);
+    expect(r.warnings.find((w) => w.code === 'basis_truncated')?.message).toMatch(
+      /40 independent balancings.*first 20/,
+    );
+    const few = balanceEquationText(`${fuels.join(' + ')} + O2 -> CO2 + H2O`, { limits: { maxBasisVectors: 5 } });
+    expect([few.dimension, few.basis.length, few.basisTruncated]).toEqual([40, 5, true]);
   });
 });

@@ -1,5 +1,9 @@
+import { elements } from 'chemical-elements';
 import { describe, expect, it } from 'vitest';
-import { EquationParseError, parseEquation, parseFormula } from '@shared/chemistry';
+import { EquationParseError, MAX_NESTING, parseEquation, parseFormula } from '@shared/chemistry';
+import { counts, text } from './support';
+
+const composition = (formula: string): Record<string, string> => counts(parseFormula(formula).composition);
 
 /** Runs `fn` and returns the EquationParseError it throws (fails the test otherwise). */
 function parseErrorOf(fn: () => unknown): EquationParseError {
@@ -14,20 +18,20 @@ function parseErrorOf(fn: () => unknown): EquationParseError {
 
 describe('parseFormula', () => {
   it('reads nested groups with multipliers', () => {
-    expect(parseFormula('Ca3(PO4)2').composition).toEqual({ Ca: 3, P: 2, O: 8 });
-    expect(parseFormula('K4[Fe(CN)6]').composition).toEqual({ K: 4, Fe: 1, C: 6, N: 6 });
+    expect(composition('Ca3(PO4)2')).toEqual({ Ca: '3', P: '2', O: '8' });
+    expect(composition('K4[Fe(CN)6]')).toEqual({ K: '4', Fe: '1', C: '6', N: '6' });
   });
 
   it('tells Co (cobalt) from CO (carbon monoxide)', () => {
-    expect(parseFormula('Co').composition).toEqual({ Co: 1 });
-    expect(parseFormula('CO').composition).toEqual({ C: 1, O: 1 });
+    expect(composition('Co')).toEqual({ Co: '1' });
+    expect(composition('CO')).toEqual({ C: '1', O: '1' });
   });
 
   it('reads (s) after a formula as a phase, not as a group of sulfur', () => {
     const sp = parseFormula('NaCl(s)');
-    expect(sp.composition).toEqual({ Na: 1, Cl: 1 });
+    expect(counts(sp.composition)).toEqual({ Na: '1', Cl: '1' });
     expect(sp.phase).toBe('s');
-    expect(parseFormula('Na2(S)').composition).toEqual({ Na: 2, S: 1 });
+    expect(composition('Na2(S)')).toEqual({ Na: '2', S: '1' });
   });
 
   it('reads every phase label and a descriptor', () => {
@@ -39,10 +43,10 @@ describe('parseFormula', () => {
   });
 
   it('reads hydrates and adducts written with ·, * or .', () => {
-    for (const text of ['CuSO4·5H2O', 'CuSO4*5H2O', 'CuSO4.5H2O', 'CuSO4 · 5H2O']) {
-      expect(parseFormula(text).composition).toEqual({ Cu: 1, S: 1, O: 9, H: 10 });
+    for (const typed of ['CuSO4·5H2O', 'CuSO4*5H2O', 'CuSO4.5H2O', 'CuSO4 · 5H2O', 'CuSO4·5 H2O']) {
+      expect(composition(typed)).toEqual({ Cu: '1', S: '1', O: '9', H: '10' });
     }
-    expect(parseFormula('(CaSO4)2·H2O').composition).toEqual({ Ca: 2, S: 2, O: 9, H: 2 });
+    expect(composition('(CaSO4)2·H2O')).toEqual({ Ca: '2', S: '2', O: '9', H: '2' });
   });
 
   it('reads every charge notation', () => {
@@ -69,32 +73,36 @@ describe('parseFormula', () => {
 
   it('keeps digits before a trailing sign as subscripts, except after ]', () => {
     const nh4 = parseFormula('NH4+');
-    expect([nh4.composition, nh4.charge, nh4.warnings]).toEqual([{ N: 1, H: 4 }, 1, []]);
+    expect([counts(nh4.composition), nh4.charge, nh4.warnings]).toEqual([{ N: '1', H: '4' }, 1, []]);
     const o2 = parseFormula('O2-'); // superoxide
-    expect([o2.composition, o2.charge, o2.warnings.length]).toEqual([{ O: 2 }, -1, 0]);
+    expect([counts(o2.composition), o2.charge, o2.warnings.length]).toEqual([{ O: '2' }, -1, 0]);
     const complex = parseFormula('[Fe(CN)6]3-');
-    expect([complex.composition, complex.charge, complex.formula]).toEqual([{ Fe: 1, C: 6, N: 6 }, -3, '[Fe(CN)6]^3-']);
+    expect([counts(complex.composition), complex.charge, complex.formula]).toEqual([
+      { Fe: '1', C: '6', N: '6' },
+      -3,
+      '[Fe(CN)6]^3-',
+    ]);
   });
 
   it('warns when the trailing-sign reading looks unlikely and shows the reading', () => {
     const fe = parseFormula('Fe3+');
-    expect(fe.composition).toEqual({ Fe: 3 });
+    expect(counts(fe.composition)).toEqual({ Fe: '3' });
     expect(fe.charge).toBe(1);
     expect(fe.warnings[0]?.code).toBe('ambiguous_charge');
     expect(fe.warnings[0]?.message).toContain('Fe^3+');
     const so4 = parseFormula('SO42-');
-    expect(so4.composition).toEqual({ S: 1, O: 42 });
+    expect(counts(so4.composition)).toEqual({ S: '1', O: '42' });
     expect(so4.warnings[0]?.message).toContain('SO4^2-');
   });
 
   it('reads Unicode subscripts', () => {
-    expect(parseFormula('H₂O').composition).toEqual({ H: 2, O: 1 });
-    expect(parseFormula('C₅₇H₁₁₀O₆').composition).toEqual({ C: 57, H: 110, O: 6 });
+    expect(composition('H₂O')).toEqual({ H: '2', O: '1' });
+    expect(composition('C₅₇H₁₁₀O₆')).toEqual({ C: '57', H: '110', O: '6' });
   });
 
   it('keeps deuterium and tritium as their own symbols', () => {
-    expect(parseFormula('D2O').composition).toEqual({ D: 2, O: 1 });
-    expect(parseFormula('HTO').composition).toEqual({ H: 1, T: 1, O: 1 });
+    expect(composition('D2O')).toEqual({ D: '2', O: '1' });
+    expect(composition('HTO')).toEqual({ H: '1', T: '1', O: '1' });
     expect(parseFormula('CDCl3').hill).toBe('CDCl3'); // D placed after H when C is present (our rule)
     expect(parseFormula('T2O').hill).toBe('OT2'); // alphabetical without carbon
   });
@@ -108,8 +116,17 @@ describe('parseFormula', () => {
     expect(parseFormula('C2H5Br').hill).toBe('C2H5Br');
   });
 
-  it('accepts all 118 element symbols', () => {
-    expect(parseFormula('OgTsLvMcFlNhCnRgDsMtHsBhSgDbRfLr').hill).toBe('BhCnDbDsFlHsLrLvMcMtNhOgRfRgSgTs');
+  it('accepts all 118 element symbols, each alone and all in one formula', () => {
+    // The list of symbols comes from the chemical-elements package (cheminfo), not from our table.
+    const symbols = elements.map((e) => e.symbol);
+    expect(symbols).toHaveLength(118);
+    for (const symbol of symbols) {
+      expect(composition(symbol)).toEqual({ [symbol]: '1' });
+      expect(composition(`${symbol}2`)).toEqual({ [symbol]: '2' });
+    }
+    const all = parseFormula(symbols.join(''));
+    expect(Object.keys(all.composition).sort()).toEqual([...symbols].sort());
+    expect(Object.values(all.composition).every((c) => text(c) === '1')).toBe(true);
   });
 });
 
@@ -125,8 +142,8 @@ describe('parseEquation', () => {
 
   it('reads whole, decimal, fraction and vulgar coefficients exactly', () => {
     const eq = parseEquation('1/2 O2(g) + 0.5 N2 + 3/2H2 + 0.125 Cl2 + ½ Br2 -> Ar');
-    expect(eq.terms.map((t) => t.coefficient).slice(0, 5)).toEqual(['1/2', '1/2', '3/2', '1/8', '1/2']);
-    expect(parseEquation('2H2 + O2 -> 2H2O').terms.map((t) => [t.coefficient, t.coefficientWritten])).toEqual([
+    expect(eq.terms.map((t) => text(t.coefficient)).slice(0, 5)).toEqual(['1/2', '1/2', '3/2', '1/8', '1/2']);
+    expect(parseEquation('2H2 + O2 -> 2H2O').terms.map((t) => [text(t.coefficient), t.coefficientWritten])).toEqual([
       ['2', true],
       ['1', false],
       ['2', true],
@@ -177,9 +194,10 @@ describe('parseEquation', () => {
   it('names an unknown element symbol and points at its column', () => {
     const err = parseErrorOf(() => parseEquation('2H2 + Xx -> H2Xx'));
     expect(err.message).toBe("Unknown element symbol 'Xx' at column 7");
-    expect(err.position).toMatchObject({ line: 1, column: 7, offset: 6 });
+    expect(err.position).toMatchObject({ line: 1, column: 7, offset: 6, length: 2 });
     expect(err.position.excerpt).toContain('Xx');
     expect(err.code).toBe('parse_error');
+    expect(err.problem).toBe("Unknown element symbol 'Xx'");
   });
 
   it('explains a missing arrow in plain words', () => {
@@ -203,7 +221,9 @@ describe('parseEquation', () => {
     expect(parseErrorOf(() => parseEquation('0 H2 -> H2')).message).toMatch(/greater than zero.*column 1/);
     expect(parseErrorOf(() => parseEquation('Fe^3 -> Fe')).message).toMatch(/needs a sign/);
     expect(parseErrorOf(() => parseEquation('H0 -> H')).message).toMatch(/at least 1/);
-    expect(parseErrorOf(() => parseEquation('CaSO4·1/2H2O -> CaSO4')).message).toMatch(/whole number/);
+    expect(parseErrorOf(() => parseEquation('CaSO4·0H2O -> CaSO4')).message).toMatch(/greater than zero.*column 7/);
+    expect(parseErrorOf(() => parseEquation('CaSO4·1/0H2O -> CaSO4')).message).toMatch(/denominator.*column 7/);
+    expect(parseErrorOf(() => parseEquation('H1234567890 -> H')).message).toMatch(/more than 9 digits/);
   });
 
   it('refuses a second line, pointing at the line break', () => {
@@ -220,5 +240,62 @@ describe('parseEquation', () => {
       ['CO2', 'g', null],
     ]);
     expect(eq.enthalpy?.value).toBeCloseTo(-393.51, 12);
+  });
+});
+
+describe('fractional formula units', () => {
+  // Calcium sulfate hemihydrate, CaSO4·½H2O: one formula unit holds half a water (common practice, no source).
+  it('reads ½, 1/2 and 0.5 as the same exact multiplier', () => {
+    for (const typed of ['CaSO4·½H2O', 'CaSO4·1/2H2O', 'CaSO4·0.5H2O', 'CaSO4 · 1/2 H2O', 'CaSO4*0.5H2O']) {
+      expect(composition(typed)).toEqual({ Ca: '1', S: '1', O: '9/2', H: '1' });
+    }
+    expect(composition('CaSO4·⅓H2O')).toEqual({ Ca: '1', S: '1', O: '13/3', H: '2/3' });
+    expect(composition('Na2CO3·1.5H2O2')).toEqual({ Na: '2', C: '1', O: '6', H: '3' });
+  });
+
+  it('keeps the multiplier exact in the structure and writes it back as a fraction', () => {
+    const sp = parseFormula('CaSO4·0.5H2O(s)');
+    expect(text(sp.parts[1]!.multiplier)).toBe('1/2');
+    expect(sp.formula).toBe('CaSO4·1/2H2O');
+    expect(parseFormula(sp.formula).formula).toBe('CaSO4·1/2H2O');
+  });
+
+  it('writes the Hill formula of one unit as written, with exact fractional counts', () => {
+    // Our stated convention (hill.ts): counts of the unit as written, decimals where they terminate.
+    expect(parseFormula('CaSO4·½H2O').hill).toBe('CaHO4.5S');
+    expect(parseFormula('CaSO4·⅓H2O').hill).toBe('CaH2/3O13/3S');
+    expect(parseFormula('C2H5OH·0.25H2O').hill).toBe('C2H6.5O1.25');
+    // Whole units are unchanged: the doubled hemihydrate is the ordinary Hill formula.
+    expect(parseFormula('(CaSO4)2·H2O').hill).toBe('Ca2H2O9S2');
+  });
+
+  it('reads coefficients before a fractional unit as coefficients', () => {
+    const eq = parseEquation('2 CaSO4·½H2O(s) + 3 H2O(l) -> 2 CaSO4·2H2O(s)');
+    expect(eq.terms.map((t) => [text(t.coefficient), t.species.hill])).toEqual([
+      ['2', 'CaHO4.5S'],
+      ['3', 'H2O'],
+      ['2', 'CaH4O6S'],
+    ]);
+  });
+});
+
+describe('nesting limit', () => {
+  it(`reads ${MAX_NESTING} nested groups and refuses one more, naming line and column`, () => {
+    const nested = (depth: number): string => '('.repeat(depth) + 'H' + ')2'.repeat(depth);
+    expect(composition(nested(MAX_NESTING))).toEqual({ H: String(2 ** MAX_NESTING) });
+    const err = parseErrorOf(() => parseEquation(`${nested(MAX_NESTING + 1)} -> H2`));
+    expect(err.message).toMatch(new RegExp(`nested more than ${MAX_NESTING} levels deep at column ${MAX_NESTING + 1}`));
+    expect(err.position).toMatchObject({ line: 1, column: MAX_NESTING + 1, offset: MAX_NESTING, length: 1 });
+  });
+
+  it('refuses 3,000 open brackets with a parse error rather than a stack overflow', () => {
+    const err = parseErrorOf(() => parseEquation(`${'['.repeat(3000)}H -> H`));
+    expect(err.position.column).toBe(MAX_NESTING + 1);
+    expect(parseErrorOf(() => parseFormula('(H'.repeat(5000))).code).toBe('parse_error');
+  });
+
+  it('names the line of a deep nesting in a multi-line text', () => {
+    const err = parseErrorOf(() => parseEquation(`H2 -> H2\n${'('.repeat(40)}`));
+    expect(err.position).toMatchObject({ line: 2, column: MAX_NESTING + 1 });
   });
 });

@@ -1,19 +1,13 @@
 import fc from 'fast-check';
+import Fraction from 'fraction.js';
 import { describe, expect, it } from 'vitest';
-import {
-  balanceEquationText,
-  ChemistryError,
-  elementBalanceTable,
-  EquationParseError,
-  formatFormula,
-  parseEquation,
-  parseFormula,
-} from '@shared/chemistry';
-import type { FormulaItem, FormulaPart, ParsedSpecies } from '@shared/chemistry';
-import { hillFormula, compositionOf } from '@shared/chemistry/hill';
-import { chargeText, partsText } from '@shared/chemistry/species';
+import { balanceRequest, formatFormula, parseFormula } from '@shared/chemistry';
+import { counts } from './support';
 
-// Property-based tests (fast-check). Structures are generated, formatted by us, and read back.
+// Property-based tests (fast-check). Formula structures are generated here; their text, their
+// atom counts and their Hill formulas are worked out by the test's own small reference code
+// (with fraction.js), never by the functions under test.
+
 const SYMBOLS = [
   'H',
   'C',
@@ -36,19 +30,25 @@ const SYMBOLS = [
   'Ts',
 ];
 
-const item: fc.Memo<FormulaItem> = fc.memo((depth) =>
+type Item = { symbol: string; count: number } | { bracket: '(' | '['; items: Item[]; count: number };
+interface Part {
+  multiplier: [number, number]; // n/d
+  items: Item[];
+}
+interface Species {
+  parts: Part[];
+  charge: number;
+  phase: string | null;
+}
+
+const item: fc.Memo<Item> = fc.memo((depth) =>
   depth <= 1
-    ? fc.record({
-        kind: fc.constant('element' as const),
-        symbol: fc.constantFrom(...SYMBOLS),
-        count: fc.integer({ min: 1, max: 12 }),
-      })
+    ? fc.record({ symbol: fc.constantFrom(...SYMBOLS), count: fc.integer({ min: 1, max: 12 }) })
     : fc.oneof(
         { weight: 3, arbitrary: item(1) },
         {
           weight: 1,
           arbitrary: fc.record({
-            kind: fc.constant('group' as const),
             bracket: fc.constantFrom('(' as const, '[' as const),
             items: fc.array(item(depth - 1), { minLength: 1, maxLength: 3 }),
             count: fc.integer({ min: 1, max: 6 }),
@@ -56,143 +56,181 @@ const item: fc.Memo<FormulaItem> = fc.memo((depth) =>
         },
       ),
 );
-const parts: fc.Arbitrary<FormulaPart[]> = fc
-  .array(
-    fc.record({
-      multiplier: fc.integer({ min: 1, max: 10 }),
-      items: fc.array(item(3), { minLength: 1, maxLength: 4 }),
-    }),
-    { minLength: 1, maxLength: 3 },
-  )
-  .map((ps) => ps.map((p, i) => (i === 0 ? { ...p, multiplier: 1 } : p)));
 
-const speciesArb: fc.Arbitrary<ParsedSpecies> = fc
-  .tuple(parts, fc.integer({ min: -4, max: 4 }), fc.constantFrom(null, 's', 'l', 'g', 'aq', 'cr', 'am'))
-  .map(([ps, charge, phase]) => {
-    const composition = compositionOf(ps);
-    return {
-      formula: partsText(ps) + chargeText(charge),
-      composition,
-      charge,
-      hill: hillFormula(composition),
-      phase: phase as ParsedSpecies['phase'],
-      descriptor: null,
-      electron: false,
-      parts: ps,
-      chargeNotation: null,
-      span: { start: 0, end: 0, column: 1 },
-    };
-  });
+const multiplier = fc.oneof(
+  { weight: 4, arbitrary: fc.integer({ min: 1, max: 10 }).map((n): [number, number] => [n, 1]) },
+  { weight: 1, arbitrary: fc.constantFrom<[number, number]>([1, 2], [3, 2], [1, 3], [2, 3], [1, 4], [5, 8]) },
+);
 
-describe('formatFormula ∘ parseFormula', () => {
-  it('reads back the same composition, charge and phase from text and Unicode output', () => {
+const speciesArb: fc.Arbitrary<Species> = fc.record({
+  parts: fc
+    .array(fc.record({ multiplier, items: fc.array(item(3), { minLength: 1, maxLength: 4 }) }), {
+      minLength: 1,
+      maxLength: 3,
+    })
+    .map((ps) => ps.map((p, i) => (i === 0 ? { ...p, multiplier: [1, 1] as [number, number] } : p))),
+  charge: fc.integer({ min: -4, max: 4 }),
+  phase: fc.constantFrom(null, 's', 'l', 'g', 'aq', 'cr', 'am'),
+});
+
+// ----- The test's own reference code --------------------------------------------------------
+
+/** Plain caret text, written here: "(SO4)3", "·1/2H2O", "^2-", "(aq)". */
+function writeItems(items: Item[]): string {
+  return items
+    .map((it) => {
+      const count = it.count === 1 ? '' : String(it.count);
+      if ('symbol' in it) return it.symbol + count;
+      return (it.bracket === '(' ? `(${writeItems(it.items)})` : `[${writeItems(it.items)}]`) + count;
+    })
+    .join('');
+}
+function writeSpecies(s: Species): string {
+  const body = s.parts
+    .map((p, i) => {
+      const [n, d] = p.multiplier;
+      const m = i === 0 || (n === 1 && d === 1) ? '' : d === 1 ? String(n) : `${n}/${d}`;
+      return m + writeItems(p.items);
+    })
+    .join('·');
+  const charge =
+    s.charge === 0 ? '' : `^${Math.abs(s.charge) === 1 ? '' : Math.abs(s.charge)}${s.charge > 0 ? '+' : '-'}`;
+  return body + charge + (s.phase ? `(${s.phase})` : '');
+}
+
+/** Atom counts by recursion over the structure, with fraction.js. */
+function referenceComposition(s: Species): Map<string, Fraction> {
+  const out = new Map<string, Fraction>();
+  const add = (items: Item[], factor: Fraction): void => {
+    for (const it of items) {
+      if ('symbol' in it) out.set(it.symbol, (out.get(it.symbol) ?? new Fraction(0)).add(factor.mul(it.count)));
+      else add(it.items, factor.mul(it.count));
+    }
+  };
+  for (const p of s.parts) add(p.items, new Fraction(p.multiplier[0], p.multiplier[1]));
+  return out;
+}
+const asText = (m: Map<string, Fraction>): Record<string, string> =>
+  Object.fromEntries([...m].map(([symbol, f]) => [symbol, f.toFraction()]));
+
+/** Hill order as hill.ts documents it, written independently: C, H, D, T first when C is present. */
+function referenceHill(m: Map<string, Fraction>): string {
+  const symbols = [...m.keys()].sort();
+  const ordered = m.has('C')
+    ? ['C', 'H', 'D', 'T'].filter((s) => m.has(s)).concat(symbols.filter((s) => !['C', 'H', 'D', 'T'].includes(s)))
+    : symbols;
+  return ordered
+    .map((s) => {
+      const f = m.get(s)!;
+      if (f.equals(1)) return s;
+      const decimal = f.toString(); // "4.5", or "4.(3)" when the decimal repeats
+      return s + (decimal.includes('(') ? f.toFraction() : decimal);
+    })
+    .join('');
+}
+
+// ----- Properties ----------------------------------------------------------------------------
+
+describe('parseFormula', () => {
+  it('reads generated formulas with the atom counts, Hill formula, charge and phase worked out by the test', () => {
     fc.assert(
-      fc.property(speciesArb, (sp) => {
-        for (const format of ['text', 'unicode'] as const) {
-          const back = parseFormula(formatFormula(sp, format));
-          expect(back.composition).toEqual(sp.composition);
-          expect(back.charge).toBe(sp.charge);
-          expect(back.phase).toBe(sp.phase);
-          expect(back.hill).toBe(sp.hill);
-        }
+      fc.property(speciesArb, (s) => {
+        const expected = referenceComposition(s);
+        const read = parseFormula(writeSpecies(s));
+        expect(counts(read.composition)).toEqual(asText(expected));
+        expect(read.hill).toBe(referenceHill(expected));
+        expect(read.charge).toBe(s.charge);
+        expect(read.phase).toBe(s.phase);
       }),
       { numRuns: 500 },
     );
   });
 });
 
-describe('balanceEquationText', () => {
-  // Random species on both sides; whatever comes back must conserve every element and the charge.
+describe('formatFormula ∘ parseFormula', () => {
+  it('reads back its own text and Unicode output as the same species', () => {
+    fc.assert(
+      fc.property(speciesArb, (s) => {
+        const expected = asText(referenceComposition(s));
+        const read = parseFormula(writeSpecies(s));
+        for (const format of ['text', 'unicode'] as const) {
+          const back = parseFormula(formatFormula(read, format));
+          expect(counts(back.composition)).toEqual(expected);
+          expect([back.charge, back.phase]).toEqual([s.charge, s.phase]);
+        }
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
+
+describe('balanceRequest', () => {
+  // Random species on both sides; whatever comes back must conserve every element and the charge,
+  // summed here with fraction.js over the test's own atom counts.
   const side = fc.array(speciesArb, { minLength: 1, maxLength: 4 });
+  const totals = (list: Array<{ s: Species; sign: 1 | -1 }>, coefficients: string[]): Map<string, Fraction> => {
+    const out = new Map<string, Fraction>();
+    list.forEach(({ s, sign }, j) => {
+      const c = new Fraction(coefficients[j]!).mul(sign);
+      for (const [symbol, n] of referenceComposition(s))
+        out.set(symbol, (out.get(symbol) ?? new Fraction(0)).add(c.mul(n)));
+      out.set('charge', (out.get('charge') ?? new Fraction(0)).add(c.mul(s.charge)));
+    });
+    return out;
+  };
+
   it('returns only balancings that conserve each element and the charge exactly', () => {
     fc.assert(
       fc.property(side, side, (left, right) => {
-        const text = (list: ParsedSpecies[]): string =>
-          list.map((s) => formatFormula({ ...s, phase: null }, 'text')).join(' + ');
-        const equation = `${text(left)} -> ${text(right)}`;
-        const r = balanceEquationText({ equation });
-        const parsed = parseEquation(equation);
-        const check = (coefficients: string[]): void => {
-          const rows = elementBalanceTable(
-            parsed.terms.map((t, j) => ({
-              composition: t.species.composition,
-              charge: t.species.charge,
-              side: t.side,
-              coefficient: coefficients[j]!,
-            })),
-          );
-          for (const row of rows) expect(row.reactants).toBe(row.products);
-        };
-        const asTyped = elementBalanceTable(
-          parsed.terms.map((t) => ({
-            composition: t.species.composition,
-            charge: t.species.charge,
-            side: t.side,
-            coefficient: t.coefficient,
-          })),
-        );
-        if (r.asGiven) expect(r.givenImbalance).toBeUndefined();
-        else expect(r.givenImbalance).toEqual(asTyped);
+        const write = (list: Species[]): string => list.map((s) => writeSpecies({ ...s, phase: null })).join(' + ');
+        const r = balanceRequest({ equation: `${write(left)} -> ${write(right)}` });
+        const terms = [...left.map((s) => ({ s, sign: 1 as const })), ...right.map((s) => ({ s, sign: -1 as const }))];
+        const conserved = (coefficients: string[]): boolean =>
+          [...totals(terms, coefficients).values()].every((f) => f.equals(0));
+
+        const asTyped = terms.map(() => '1');
+        expect(r.asGiven).toBe(conserved(asTyped));
+        if (!r.asGiven) {
+          // The per-element table of the typed coefficients, against the test's own sums.
+          const sums = new Map<string, [Fraction, Fraction]>();
+          terms.forEach(({ s, sign }) => {
+            const entries: Array<[string, Fraction]> = [...referenceComposition(s)];
+            if (terms.some((t) => t.s.charge !== 0)) entries.push(['charge', new Fraction(s.charge)]);
+            for (const [key, n] of entries) {
+              const row = sums.get(key) ?? [new Fraction(0), new Fraction(0)];
+              row[sign === 1 ? 0 : 1] = row[sign === 1 ? 0 : 1].add(n);
+              sums.set(key, row);
+            }
+          });
+          expect(
+            Object.fromEntries(r.givenImbalance!.map((row) => [row.element, [row.reactants, row.products]])),
+          ).toEqual(Object.fromEntries([...sums].map(([key, [a, b]]) => [key, [a.toFraction(), b.toFraction()]])));
+        } else {
+          expect(r.givenImbalance).toBeUndefined();
+        }
         if (r.status !== 'impossible') {
-          check(r.terms.map((t) => t.coefficient));
-          expect(r.terms.every((t) => !t.coefficient.startsWith('-') && t.coefficient !== '0')).toBe(true);
+          const found = r.terms.map((t) => t.coefficient);
+          expect(conserved(found)).toBe(true);
+          expect(found.every((c) => new Fraction(c).compare(0) > 0)).toBe(true);
         } else {
           expect(r.reason).toBeTruthy();
         }
-        for (const v of r.basis ?? []) if (r.status === 'multiple') check(v);
+        if (r.status === 'multiple') for (const v of r.basis ?? []) expect(conserved(v)).toBe(true);
       }),
       { numRuns: 300 },
     );
   });
 
-  // Decomposition into elements is always possible: A_x B_y… -> A + B2 + …
+  // Decomposition into the elements is always possible: A_x B_y… -> A2 + B2 + …
   it('always balances a decomposition into the elements', () => {
     fc.assert(
-      fc.property(
-        fc.array(
-          speciesArb.map((s) => ({ ...s, charge: 0, formula: partsText(s.parts) })),
-          { minLength: 1, maxLength: 3 },
-        ),
-        (list) => {
-          const symbols = [...new Set(list.flatMap((s) => Object.keys(s.composition)))];
-          const equation = `${list.map((s) => formatFormula({ ...s, phase: null }, 'text')).join(' + ')} -> ${symbols.map((s) => `${s}2`).join(' + ')}`;
-          const r = balanceEquationText({ equation });
-          expect(['balanced', 'multiple']).toContain(r.status);
-        },
-      ),
+      fc.property(fc.array(speciesArb, { minLength: 1, maxLength: 3 }), (list) => {
+        const neutral = list.map((s) => ({ ...s, charge: 0, phase: null }));
+        const symbols = [...new Set(neutral.flatMap((s) => [...referenceComposition(s).keys()]))];
+        const equation = `${neutral.map(writeSpecies).join(' + ')} -> ${symbols.map((s) => `${s}2`).join(' + ')}`;
+        expect(['balanced', 'multiple']).toContain(balanceRequest({ equation }).status);
+      }),
       { numRuns: 200 },
-    );
-  });
-});
-
-describe('parseEquation on arbitrary text', () => {
-  const alphabet = fc.constantFrom(...'HCONSFeClXxq0123456789()[]{}^+-−→⇌<=>·*. ,;/ΔdkJcal₂²⁻⁺e\n\t#'.split(''));
-  it('only ever throws EquationParseError, never crashes', () => {
-    fc.assert(
-      fc.property(
-        fc.oneof(
-          fc.string({ unit: alphabet, maxLength: 40 }),
-          fc.string({ maxLength: 40 }),
-          fc.string({ unit: 'binary', maxLength: 30 }),
-        ),
-        (text) => {
-          try {
-            parseEquation(text);
-          } catch (err) {
-            expect(err).toBeInstanceOf(EquationParseError);
-            const e = err as EquationParseError;
-            expect(e.position.line).toBeGreaterThanOrEqual(1);
-            expect(e.position.column).toBeGreaterThanOrEqual(1);
-            expect(e.message).not.toMatch(/but .* found\.$/);
-          }
-          try {
-            balanceEquationText({ equation: text || ' ' });
-          } catch (err) {
-            expect(err).toBeInstanceOf(ChemistryError);
-          }
-        },
-      ),
-      { numRuns: 2000 },
     );
   });
 });

@@ -1,0 +1,51 @@
+// Runs in a worker thread of the calculation pool (see calc-pool.ts): the chemistry core's CPU
+// work happens here, so a long batch never blocks the request thread. Replies cross the thread
+// boundary as plain data: the JSON text of the result, or an error with its API code.
+import { ChemistryError } from '@shared/chemistry/index';
+import type { BalanceInput } from '@shared/schemas/balance';
+import type { CalcLimits } from '../env';
+import { balanceLines, balanceOne } from './core-calls';
+import { assertReplyWithinLimit, WorkLimitExceeded } from './work-limits';
+
+/** A calculation the pool can run. */
+export type CalcTask =
+  { kind: 'balance'; input: BalanceInput; limits: CalcLimits } | { kind: 'batch'; text: string; limits: CalcLimits };
+
+/** What comes back: the reply body already serialised (so the request thread does not), or a client error. */
+export type CalcOutcome =
+  | { ok: true; json: string }
+  | { ok: false; error: { code: string; message: string; details?: Record<string, unknown> } };
+
+function compute(task: CalcTask): unknown {
+  switch (task.kind) {
+    case 'balance':
+      return balanceOne(task.input, task.limits);
+    case 'batch':
+      return balanceLines(task.text, task.limits);
+  }
+}
+
+/** The worker's entry point. Errors that are not the caller's fault are thrown (500 in the server, logged). */
+export default function runCalcTask(task: CalcTask): CalcOutcome {
+  try {
+    const json = JSON.stringify(compute(task));
+    assertReplyWithinLimit(Buffer.byteLength(json, 'utf8'), task.limits);
+    return { ok: true, json };
+  } catch (err) {
+    if (err instanceof WorkLimitExceeded) return { ok: false, error: err.problem };
+    if (err instanceof ChemistryError) {
+      return {
+        ok: false,
+        error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) },
+      };
+    }
+    if (err instanceof RangeError && /call stack/i.test(err.message)) {
+      // Safety net: input nested deeper than the parser can follow is the input's problem, not a crash.
+      return {
+        ok: false,
+        error: { code: 'unprocessable', message: 'The equation is nested too deeply to read. Simplify the brackets.' },
+      };
+    }
+    throw err;
+  }
+}

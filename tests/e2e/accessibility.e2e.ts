@@ -1,0 +1,157 @@
+/**
+ * Every page, as every role, in the light and the dark theme, through axe-core: no critical or
+ * serious violation may remain. Each walk signs in on its own and only reads, so walks run in
+ * any order. A new page gets a step here (see DEVELOPERS.md → "Adding a page").
+ */
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { axeFindings, blocking, logSummary, type AxeFinding } from './axe';
+import { openTeamArea, signIn, useBrowser, type Role } from './helpers';
+
+interface Step {
+  name: string;
+  /** Brings the page into the state to check and waits until it shows. */
+  open: (page: Page) => Promise<void>;
+}
+
+const workbenchBalanced: Step = {
+  name: 'workbench, balanced equation',
+  open: async (page) => {
+    await page.goto('/');
+    await page.getByTestId('equation-input').locator('input').fill('2 H2(g) + O2(g) -> 2 H2O(l); ΔH = -571.6 kJ');
+    await page.locator('[data-testid="balance-status"][data-status="balanced"]').waitFor();
+    await page.getByTestId('balanced-equation').waitFor();
+  },
+};
+const account: Step = {
+  name: 'account',
+  open: async (page) => {
+    await page.goto('/account');
+    await page.getByRole('heading', { name: 'Account', level: 1 }).waitFor();
+    await page
+      .getByText(/No tokens yet|Revoke/)
+      .first()
+      .waitFor();
+  },
+};
+const notes: Step = {
+  name: 'team notes',
+  open: async (page) => {
+    await openTeamArea(page, 'notes');
+    await page.getByTestId('note-card').first().waitFor();
+  },
+};
+const noteComposer: Step = {
+  name: 'team notes, new-note form open',
+  open: async (page) => {
+    await openTeamArea(page, 'notes');
+    await page.getByTestId('note-new').click();
+    await page.getByTestId('note-title').waitFor();
+  },
+};
+const members: Step = {
+  name: 'members',
+  open: async (page) => {
+    await openTeamArea(page, 'members');
+    await page.getByTestId('members-table').locator('tbody tr').first().waitFor();
+  },
+};
+const adminPage = (path: string, name: string, ready: (page: Page) => Promise<void>): Step => ({
+  name,
+  open: async (page) => {
+    await page.goto(path);
+    await ready(page);
+  },
+});
+
+/** What each role can open; anonymous visitors also see the public forms and the error pages. */
+const walks: Record<Role | 'anonymous', Step[]> = {
+  anonymous: [
+    workbenchBalanced,
+    {
+      name: 'sign-in',
+      open: async (page) => {
+        await page.goto('/sign-in');
+        await page.getByTestId('sign-in-submit').waitFor();
+      },
+    },
+    {
+      name: 'reset password, ask for a link',
+      open: async (page) => {
+        await page.goto('/reset-password');
+        await page.getByTestId('reset-email').waitFor();
+      },
+    },
+    {
+      name: 'reset password, choose a new one',
+      open: async (page) => {
+        await page.goto('/reset-password?token=not-a-real-token-but-long-enough');
+        await page.getByRole('heading', { name: 'Choose a new password' }).waitFor();
+      },
+    },
+    {
+      name: 'invitation that does not exist',
+      open: async (page) => {
+        await page.goto('/invitations/no-such-invitation');
+        await page.getByText('This invitation cannot be used').waitFor();
+      },
+    },
+    {
+      name: 'page not found',
+      open: async (page) => {
+        await page.goto('/no/such/page');
+        await page.getByText('No page here').waitFor();
+      },
+    },
+  ],
+  viewer: [
+    workbenchBalanced,
+    account,
+    notes,
+    members,
+    {
+      name: 'admin page, not allowed',
+      open: async (page) => {
+        await page.goto('/admin/users');
+        await page.getByTestId('forbidden-view').waitFor();
+      },
+    },
+  ],
+  member: [workbenchBalanced, account, notes, noteComposer, members],
+  teamAdmin: [workbenchBalanced, notes, members],
+  curator: [workbenchBalanced, account, notes, members],
+  siteAdmin: [
+    workbenchBalanced,
+    account,
+    adminPage('/admin/users', 'admin users', (page) =>
+      page.getByTestId('admin-users-table').locator('tbody tr').first().waitFor(),
+    ),
+    adminPage('/admin/teams', 'admin teams', (page) =>
+      page.getByRole('cell', { name: 'Kestrel Bay Process Lab' }).waitFor(),
+    ),
+    adminPage('/admin/outbox', 'admin outbox', (page) => page.getByText('Messages').waitFor()),
+    adminPage('/admin/audit-log', 'audit log', (page) => page.locator('tbody tr td').first().waitFor()),
+  ],
+  otherTeamAdmin: [notes, members],
+};
+
+for (const theme of ['light', 'dark'] as const) {
+  describe(`accessibility (axe), ${theme} theme`, () => {
+    // The app follows the system's colour scheme until the user picks a theme.
+    const browser = useBrowser({ colorScheme: theme });
+
+    for (const [role, steps] of Object.entries(walks) as Array<[Role | 'anonymous', Step[]]>) {
+      it(`has no critical or serious violations on the pages of: ${role}`, async () => {
+        const { page } = browser;
+        if (role !== 'anonymous') await signIn(page, role);
+        const findings: AxeFinding[] = [];
+        for (const step of steps) {
+          await step.open(page);
+          findings.push(...(await axeFindings(page, `${step.name} [${role}, ${theme}]`)));
+        }
+        logSummary(`${role}, ${theme}`, findings);
+        expect(blocking(findings)).toEqual([]);
+      }, 240_000);
+    }
+  });
+}
