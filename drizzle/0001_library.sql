@@ -14,6 +14,29 @@ CREATE TABLE "library_models" (
 	"valid_to" integer
 );
 --> statement-breakpoint
+CREATE TABLE "library_reactions" (
+	"row_id" bigserial PRIMARY KEY NOT NULL,
+	"id" uuid NOT NULL,
+	"key" text NOT NULL,
+	"equation" text NOT NULL,
+	"terms" jsonb NOT NULL,
+	"delta_h" numeric NOT NULL,
+	"uncertainty_kind" text NOT NULL,
+	"uncertainty_stated" numeric,
+	"coverage_k" double precision,
+	"standard_uncertainty" double precision,
+	"uncertainty_rule" text NOT NULL,
+	"temperature" double precision NOT NULL,
+	"method" text NOT NULL,
+	"molality" double precision,
+	"source_id" uuid NOT NULL,
+	"table_ref" text,
+	"provenance" text NOT NULL,
+	"provenance_note" text,
+	"valid_from" integer NOT NULL,
+	"valid_to" integer
+);
+--> statement-breakpoint
 CREATE TABLE "library_revisions" (
 	"number" integer PRIMARY KEY NOT NULL,
 	"kind" text NOT NULL,
@@ -101,6 +124,8 @@ CREATE TABLE "library_values" (
 --> statement-breakpoint
 ALTER TABLE "library_models" ADD CONSTRAINT "library_models_valid_from_library_revisions_number_fk" FOREIGN KEY ("valid_from") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_models" ADD CONSTRAINT "library_models_valid_to_library_revisions_number_fk" FOREIGN KEY ("valid_to") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "library_reactions" ADD CONSTRAINT "library_reactions_valid_from_library_revisions_number_fk" FOREIGN KEY ("valid_from") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "library_reactions" ADD CONSTRAINT "library_reactions_valid_to_library_revisions_number_fk" FOREIGN KEY ("valid_to") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_revisions" ADD CONSTRAINT "library_revisions_created_by_users_id_fk" FOREIGN KEY ("created_by") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_selections" ADD CONSTRAINT "library_selections_selected_by_users_id_fk" FOREIGN KEY ("selected_by") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_selections" ADD CONSTRAINT "library_selections_valid_from_library_revisions_number_fk" FOREIGN KEY ("valid_from") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
@@ -114,6 +139,9 @@ ALTER TABLE "library_values" ADD CONSTRAINT "library_values_valid_to_library_rev
 CREATE UNIQUE INDEX "library_models_current_id" ON "library_models" USING btree ("id") WHERE "library_models"."valid_to" is null;--> statement-breakpoint
 CREATE INDEX "library_models_species" ON "library_models" USING btree ("species_id");--> statement-breakpoint
 CREATE INDEX "library_models_validity" ON "library_models" USING btree ("valid_from","valid_to");--> statement-breakpoint
+CREATE UNIQUE INDEX "library_reactions_current_id" ON "library_reactions" USING btree ("id") WHERE "library_reactions"."valid_to" is null;--> statement-breakpoint
+CREATE UNIQUE INDEX "library_reactions_current_key" ON "library_reactions" USING btree ("key") WHERE "library_reactions"."valid_to" is null;--> statement-breakpoint
+CREATE INDEX "library_reactions_validity" ON "library_reactions" USING btree ("valid_from","valid_to");--> statement-breakpoint
 CREATE UNIQUE INDEX "library_selections_current" ON "library_selections" USING btree ("species_id","property") WHERE "library_selections"."valid_to" is null;--> statement-breakpoint
 CREATE INDEX "library_selections_validity" ON "library_selections" USING btree ("valid_from","valid_to");--> statement-breakpoint
 CREATE UNIQUE INDEX "library_sources_current_id" ON "library_sources" USING btree ("id") WHERE "library_sources"."valid_to" is null;--> statement-breakpoint
