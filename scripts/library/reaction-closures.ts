@@ -20,7 +20,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Papa from 'papaparse';
-import { parseEquation } from '@shared/chemistry';
+import { parseEquation, ratText } from '@shared/chemistry';
 
 type Row = Record<string, string>;
 const R = 8.314462618e-3; // kJ/(mol K), CODATA 2018
@@ -132,7 +132,7 @@ export function reactionClosures(dir: string): { closures: Closure[]; skipped: s
       for (const t of parseEquation(r.equation!).terms) {
         const s = t.species;
         const key = `${s.formula}(${s.phase}${s.descriptor ? `, ${s.descriptor}` : ''})`;
-        const [n, d = '1'] = t.coefficient.split('/');
+        const [n, d = '1'] = ratText(t.coefficient).split('/');
         const nu = ((t.side === 'product' ? 1 : -1) * Number(n)) / Number(d);
         const v = selected(key);
         if (!v) {

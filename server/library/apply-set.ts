@@ -332,6 +332,7 @@ async function applyReactions(
       molality: r.molality,
       sourceId: sourceId(r),
       tableRef: r.table,
+      independent: r.independent,
       provenance: r.provenance,
       provenanceNote: r.note,
     };
@@ -350,6 +351,7 @@ async function applyReactions(
         'molality',
         'sourceId',
         'tableRef',
+        'independent',
         'provenance',
         'provenanceNote',
       ])

@@ -9,7 +9,8 @@ import {
   type NetworkSpecies,
 } from '@shared/chemistry/hess/index';
 import { citationOf } from './present';
-import { selectedValue, type LibrarySnapshot, type SpeciesEntry } from './snapshot';
+import { coversTemperature, enthalpyIncrement, prepareThermoModel } from '@shared/chemistry/thermo/index';
+import { selectedModel, selectedValue, type LibrarySnapshot, type ReactionEntry, type SpeciesEntry } from './snapshot';
 
 /**
  * The combiner's view of one library revision: the formation reaction of every species with a
@@ -104,9 +105,21 @@ export function libraryNetworkOf(snapshot: LibrarySnapshot): LibraryNetwork {
   }
   const excluded: LibraryNetwork['excluded'] = [];
   for (const r of snapshot.reactions) {
-    if (Math.abs(r.temperature - 298.15) > 0.005) {
-      excluded.push({ key: r.key, reason: `measured at ${r.temperature} K, not 298.15 K` });
+    if (!r.independent) {
+      excluded.push({ key: r.key, reason: 'restates values the library already holds' });
       continue;
+    }
+    let deltaH = exact(r.deltaHText);
+    if (Math.abs(r.temperature - 298.15) > 0.005) {
+      const corrected = atReferenceTemperature(snapshot, r);
+      if (corrected === null) {
+        excluded.push({
+          key: r.key,
+          reason: `measured at ${r.temperature} K, and not every species has a heat-capacity model there`,
+        });
+        continue;
+      }
+      deltaH = corrected;
     }
     const id = measuredId(r.id);
     const source = snapshot.sources.get(r.sourceId);
@@ -118,7 +131,7 @@ export function libraryNetworkOf(snapshot: LibrarySnapshot): LibraryNetwork {
       terms: r.terms
         .filter((t) => !referenceKeys.has(t.key))
         .map((t) => ({ species: t.key, coefficient: new Fraction(t.coefficient) })),
-      deltaH: exact(r.deltaHText),
+      deltaH,
       uncertainty: r.standardUncertainty,
       ...(source ? { source: citationOf(source) } : {}),
     });
@@ -132,6 +145,24 @@ export function libraryNetworkOf(snapshot: LibrarySnapshot): LibraryNetwork {
   const built: LibraryNetwork = { network: buildHessNetwork(reactions, species), inputs, referenceKeys, excluded };
   networks.set(snapshot, built);
   return built;
+}
+
+/**
+ * ΔrH at 298.15 K of a reaction measured at T, by Kirchhoff with the selected models:
+ * ΔH(298.15) = ΔH(T) − Σν [H(T) − H(298.15 K)]. Null when a species has no model covering T.
+ * The result keeps 12 significant digits as an exact decimal (the models are not exact).
+ */
+function atReferenceTemperature(snapshot: LibrarySnapshot, r: ReactionEntry): Fraction | null {
+  let increment = 0;
+  for (const t of r.terms) {
+    const entry = t.speciesId ? snapshot.species.get(t.speciesId) : undefined;
+    const model = entry ? selectedModel(snapshot, entry.id) : null;
+    if (!entry || !model) return null;
+    const prepared = prepareThermoModel({ species: entry.key, scale: model.scale, forms: model.forms });
+    if (!coversTemperature(prepared, r.temperature) || !coversTemperature(prepared, 298.15)) return null;
+    increment += new Fraction(t.coefficient).valueOf() * enthalpyIncrement(prepared, r.temperature);
+  }
+  return exact(r.deltaHText).sub(exact(increment.toPrecision(12)));
 }
 
 /** The inputs a derived library value rests on, when its derivation records them. */

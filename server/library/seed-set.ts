@@ -144,6 +144,8 @@ export interface ReactionRecord {
   molality: number | null;
   source: string;
   table: string | null;
+  /** False when the value restates library values (computed from them): left out of Hess sums. */
+  independent: boolean;
   provenance: Provenance;
   note: string | null;
 }
@@ -288,6 +290,7 @@ const reactionRow = z.object({
     .refine((m) => m === null || m > 0, 'must be above 0 mol/kg'),
   source: requiredText,
   table: optionalText,
+  independent: z.enum(['yes', 'no'], { message: 'must be yes or no' }).transform((v) => v === 'yes'),
   provenance: provenanceSchema,
   note: optionalText,
 });
@@ -407,6 +410,7 @@ const headers = {
     'molality',
     'source',
     'table',
+    'independent',
     'provenance',
     'note',
   ],
@@ -565,6 +569,7 @@ function toReaction(r: z.output<typeof reactionRow>, origin: Origin, problems: S
     molality: r.molality,
     source: r.source,
     table: r.table,
+    independent: r.independent,
     provenance: r.provenance,
     note: r.note,
   };

@@ -125,6 +125,7 @@ export interface ReactionEntry {
   molality: number | null;
   sourceId: string;
   tableRef: string | null;
+  independent: boolean;
   provenance: Provenance;
   provenanceNote: string | null;
   validFrom: number;
@@ -197,6 +198,7 @@ export async function loadSnapshot(db: Executor, revision: number): Promise<Libr
         molality: row.molality,
         sourceId: row.sourceId,
         tableRef: row.tableRef,
+        independent: row.independent,
         provenance: row.provenance,
         provenanceNote: row.provenanceNote,
         validFrom: row.validFrom,

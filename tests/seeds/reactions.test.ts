@@ -19,11 +19,11 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import { balanceEquationText, parseEquation, parseFormula } from '@shared/chemistry';
+import { balanceEquationText, parseEquation, parseFormula, ratText } from '@shared/chemistry';
 
 const LIBRARY = fileURLToPath(new URL('../../seeds/library', import.meta.url));
 const HEADER =
-  'key,equation,delta_h,unit,uncertainty_kind,uncertainty,k,temperature,method,molality,source,table,provenance,note';
+  'key,equation,delta_h,unit,uncertainty_kind,uncertainty,k,temperature,method,molality,source,table,independent,provenance,note';
 
 type Row = Record<string, string> & { __file: string; __line: number };
 function readCsv(file: string): { header: string; rows: Row[] } {
@@ -62,7 +62,7 @@ interface Term {
 function termsOf(equation: string): Term[] {
   return parseEquation(equation).terms.map((t) => {
     const s = t.species;
-    const [n, d = '1'] = t.coefficient.split('/');
+    const [n, d = '1'] = ratText(t.coefficient).split('/');
     return {
       key: `${s.formula}(${s.phase}${s.descriptor ? `, ${s.descriptor}` : ''})`,
       nu: ((t.side === 'product' ? 1 : -1) * Number(n)) / Number(d),
@@ -317,10 +317,10 @@ describe('equations', () => {
   it.each(reactions.map((r) => [r.key!, r] as const))('%s parses and balances as written', (_key, r) => {
     const parsed = parseEquation(r.equation!);
     expect(parsed.warnings, where(r)).toEqual([]);
-    const balanced = balanceEquationText({ equation: r.equation! });
+    const balanced = balanceEquationText(r.equation!);
     expect(balanced.status, where(r)).toBe('balanced');
     expect(balanced.asGiven, where(r)).toBe(true);
-    expect(balanced.givenImbalance ?? [], where(r)).toEqual([]);
+    expect(balanced.givenTotals ?? [], where(r)).toEqual([]);
   });
 
   it('name every species by its library key, exactly as keyed (finite-molality aqueous species aside)', () => {

@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import {
   bigserial,
+  boolean,
   doublePrecision,
   index,
   integer,
@@ -241,6 +242,8 @@ export const libraryReactions = pgTable(
     molality: doublePrecision('molality'),
     sourceId: uuid('source_id').notNull(),
     tableRef: text('table_ref'),
+    /** False when the value restates library values: kept for reference, left out of Hess sums. */
+    independent: boolean('independent').notNull().default(true),
     provenance: text('provenance').$type<Provenance>().notNull(),
     provenanceNote: text('provenance_note'),
     ...validity,

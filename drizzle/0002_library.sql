@@ -1,0 +1,1 @@
+ALTER TABLE "library_reactions" ADD COLUMN "independent" boolean DEFAULT true NOT NULL;
