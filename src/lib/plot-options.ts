@@ -6,7 +6,7 @@ import type { PlotOption } from '@/plugins/echarts';
 import { axisStyle, baseStyle, type ChartColors } from './chart-style';
 import type { CurveMark, CurvePoint } from './thermo-curves';
 import type { GapInterval } from './enthalpy-curve';
-import { formatSignificant } from './uncertainty-rounding';
+import { formatSignificant, formatTemperature } from './uncertainty-rounding';
 
 const grid = { left: 70, right: 28, top: 30, bottom: 50, containLabel: false };
 
@@ -27,7 +27,7 @@ function marksLine(marks: readonly CurveMark[], c: ChartColors) {
     },
     data: marks.map((m) => ({
       xAxis: m.temperature,
-      name: `${m.label} ${formatSignificant(m.temperature, 4)} K`,
+      name: `${m.label} ${formatTemperature(m.temperature)} K`,
     })),
   };
 }
@@ -99,8 +99,7 @@ export function reactionCurveOption(args: {
           silent: true,
           lineStyle: { color: c.warning, type: 'dashed' as const },
           label: { color: c.muted, fontSize: 11, formatter: (p: { name?: string }) => p.name ?? '' },
-          data:
-            args.chosen !== null ? [{ xAxis: args.chosen, name: `T = ${formatSignificant(args.chosen, 5)} K` }] : [],
+          data: args.chosen !== null ? [{ xAxis: args.chosen, name: `T = ${formatTemperature(args.chosen)} K` }] : [],
         },
       },
     ],

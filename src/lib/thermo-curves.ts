@@ -17,7 +17,7 @@ import {
   type PreparedThermoModel,
 } from '@shared/chemistry/thermo/index';
 import type { LibraryModel } from '@shared/schemas/library';
-import { formatSignificant } from './uncertainty-rounding';
+import { formatSignificant, formatTemperature } from './uncertainty-rounding';
 
 /** [T in K, value] or a break in the line. */
 export type CurvePoint = [number, number] | [number, null];
@@ -119,7 +119,7 @@ export function speciesCurves(speciesKey: string, model: LibraryModel, count = 1
     }
   }
 
-  const startText = formatSignificant(min, 5);
+  const startText = formatTemperature(min);
   const enthalpyLabel =
     enthalpyScale === 'increment'
       ? 'H°(T) − H°(298.15 K), kJ/mol'
@@ -149,14 +149,14 @@ function extremes(points: readonly CurvePoint[]): { lo: [number, number]; hi: [n
 
 /** The plots in words, for screen readers and for anyone who cannot see the picture. */
 export function describeCurves(curves: SpeciesCurves): { cp: string; enthalpy: string } {
-  const range = `from ${formatSignificant(curves.range.min, 5)} K to ${formatSignificant(curves.range.max, 5)} K`;
+  const range = `from ${formatTemperature(curves.range.min)} K to ${formatTemperature(curves.range.max)} K`;
   const marks =
     curves.marks.length === 0
       ? 'No phase change or jump inside the range.'
       : `Marked: ${curves.marks
           .map(
             (m) =>
-              `${m.kind === 'transition' ? 'phase change' : 'jump at a joint'} ${m.label} at ${formatSignificant(m.temperature, 5)} K (${formatSignificant(m.enthalpy, 3)} kJ/mol)`,
+              `${m.kind === 'transition' ? 'phase change' : 'jump at a joint'} ${m.label} at ${formatTemperature(m.temperature)} K (${formatSignificant(m.enthalpy, 3)} kJ/mol)`,
           )
           .join('; ')}.`;
   const cp = extremes(curves.cp);
@@ -166,7 +166,7 @@ export function describeCurves(curves: SpeciesCurves): { cp: string; enthalpy: s
   return {
     cp:
       cp && first && last
-        ? `Heat capacity Cp° ${range}: ${formatSignificant(first[1]!, 4)} J/(mol K) at the start, ${formatSignificant(last[1]!, 4)} at the end; lowest ${formatSignificant(cp.lo[1], 4)} at ${formatSignificant(cp.lo[0], 4)} K, highest ${formatSignificant(cp.hi[1], 4)} at ${formatSignificant(cp.hi[0], 4)} K. ${marks}`
+        ? `Heat capacity Cp° ${range}: ${formatSignificant(first[1]!, 4)} J/(mol K) at the start, ${formatSignificant(last[1]!, 4)} at the end; lowest ${formatSignificant(cp.lo[1], 4)} at ${formatTemperature(cp.lo[0])} K, highest ${formatSignificant(cp.hi[1], 4)} at ${formatTemperature(cp.hi[0])} K. ${marks}`
         : `Heat capacity ${range}: no values.`,
     enthalpy: h
       ? `${curves.enthalpyLabel} ${range}: from ${formatSignificant(h.lo[1], 4)} to ${formatSignificant(h.hi[1], 4)} kJ/mol. ${marks}`
