@@ -16,7 +16,7 @@ function effective([min, max]: readonly [number, number]): [number, number] {
 
 /**
  * The temperatures to plot: the user's `from`/`to` when both are given and ordered; otherwise
- * the range every species' model covers, widened by a tenth on each side so the plot shows where
+ * the range every species' model covers, widened by a tenth on each side (to multiples of 5 K) so the plot shows where
  * the models end (those temperatures come back as gaps). Without a model for some species,
  * there is no curve.
  */
@@ -43,13 +43,10 @@ export function curveRange(
     lo = Math.min(...usable.map((r) => r[0]));
     hi = Math.max(...usable.map((r) => r[1]));
   }
+  // Widened by a tenth on each side, out to whole multiples of 5 K so the axis reads cleanly.
   const pad = (hi - lo) / 10;
-  const from = Math.max(1, lo - pad);
-  return { kind: 'range', from: round(from), to: round(hi + pad), points: CURVE_POINTS };
-}
-
-function round(t: number): number {
-  return Math.round(t * 100) / 100;
+  const from = Math.max(5, Math.floor((lo - pad) / 5) * 5);
+  return { kind: 'range', from, to: Math.ceil((hi + pad) / 5) * 5, points: CURVE_POINTS };
 }
 
 /** A gap's reason without its own temperature, so a run of gaps with one cause reads once. */

@@ -1,6 +1,6 @@
 /**
  * ECharts with only the parts our plots use (line charts, axes, tooltips, marked lines and areas,
- * legend, ARIA text), so the plot chunk stays small. The canvas draws on screen; the SVG renderer
+ * ARIA text), so the plot chunk stays small. The canvas draws on screen; the SVG renderer
  * is there for saving a plot as SVG.
  */
 import { init, use, type ComposeOption } from 'echarts/core';
@@ -9,13 +9,11 @@ import { LineChart, type LineSeriesOption } from 'echarts/charts';
 import {
   AriaComponent,
   GridComponent,
-  LegendComponent,
   MarkAreaComponent,
   MarkLineComponent,
   TooltipComponent,
   type AriaComponentOption,
   type GridComponentOption,
-  type LegendComponentOption,
   type MarkAreaComponentOption,
   type MarkLineComponentOption,
   type TooltipComponentOption,
@@ -29,7 +27,6 @@ use([
   TooltipComponent,
   MarkLineComponent,
   MarkAreaComponent,
-  LegendComponent,
   AriaComponent,
 ]);
 
@@ -40,7 +37,6 @@ export type PlotOption = ComposeOption<
   | TooltipComponentOption
   | MarkLineComponentOption
   | MarkAreaComponentOption
-  | LegendComponentOption
   | AriaComponentOption
 >;
 

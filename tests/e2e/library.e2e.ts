@@ -67,12 +67,20 @@ describe('library and reaction enthalpy (signed out)', () => {
     // Pedley, Naylor & Kirby (1986): ΔfH°(C2H5OH, l) = −277.0 ± 0.3 kJ/mol as 2σ, so u = 0.15 (seed value, from memory).
     expect(await values.first().textContent()).toContain(`${MINUS}277.00 ± 0.15`);
     expect(await values.first().textContent()).toContain('selected');
-    expect(await text(page, 'disagreements')).toContain('differ by 0.690 kJ/mol');
+    expect(await text(page, 'disagreements')).toContain('differ by 0.69 kJ/mol');
     // A plot is drawn (canvas) and described in words.
     const cpPlot = page.getByTestId('plot-cp');
     await cpPlot.locator('canvas').first().waitFor();
     expect(await cpPlot.locator('figcaption').textContent()).toMatch(/Heat capacity Cp° from 273\.15 K to 351\.4 K/);
     await screenshot(page, 'species-ethanol-liquid');
+    // Every plot saves as PNG and as SVG.
+    for (const format of ['PNG', 'SVG']) {
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        cpPlot.getByRole('button', { name: new RegExp(`as ${format}$`) }).click(),
+      ]);
+      expect(download.suggestedFilename()).toBe(`C2H6O-l-Cp.${format.toLowerCase()}`);
+    }
   });
 
   it('evaluates the esterification with its uncertainty and sources, at 350 K, and the heat of 60 g of acid', async () => {
