@@ -16,7 +16,7 @@ function effective([min, max]: readonly [number, number]): [number, number] {
 
 /**
  * The temperatures to plot: the user's `from`/`to` when both are given and ordered; otherwise
- * the range every species' model covers, widened by a tenth on each side (to multiples of 5 K) so the plot shows where
+ * the range every species' model covers, widened by a tenth on each side (100 K at most, to multiples of 5 K) so the plot shows where
  * the models end (those temperatures come back as gaps). Without a model for some species,
  * there is no curve.
  */
@@ -44,7 +44,7 @@ export function curveRange(
     hi = Math.max(...usable.map((r) => r[1]));
   }
   // Widened by a tenth on each side, out to whole multiples of 5 K so the axis reads cleanly.
-  const pad = (hi - lo) / 10;
+  const pad = Math.min((hi - lo) / 10, 100);
   const from = Math.max(5, Math.floor((lo - pad) / 5) * 5);
   return { kind: 'range', from, to: Math.ceil((hi + pad) / 5) * 5, points: CURVE_POINTS };
 }

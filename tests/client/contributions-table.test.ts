@@ -79,3 +79,18 @@ describe('UncertaintyIncomplete', () => {
     expect(wrapper.text()).toContain('no uncertainty is stated for some of the values used');
   });
 });
+
+describe('ContributionsTable with an element in its reference state', () => {
+  it('shows ΔfH° = 0 as exact, not as a value without uncertainty', () => {
+    const result = esterification();
+    result.terms[3] = { ...result.terms[3]!, deltaFH: { value: 0, uncertainty: 0 } };
+    result.contributions[3] = { ...result.contributions[3]!, contribution: 0, uncertainty: 0, varianceShare: 0 };
+    const wrapper = mount(ContributionsTable, {
+      props: { rows: contributionRows(result, provenance), temperature: 298.15, revision: null },
+      global: { stubs: { RouterLink: RouterLinkStub } },
+    });
+    const row = wrapper.findAll('[data-testid="contribution-row"]')[3]!;
+    expect(row.text()).toContain('(reference state, exact)');
+    expect(row.text()).not.toContain('not stated');
+  });
+});

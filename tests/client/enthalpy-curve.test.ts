@@ -53,3 +53,15 @@ describe('gapIntervals', () => {
     expect(gapReason('no prefix')).toBe('no prefix');
   });
 });
+
+describe('curveRange on wide models', () => {
+  it('widens by 100 K at most', () => {
+    // 200–5000 K: a tenth would be 480 K; 100 K is used.
+    expect(
+      curveRange([
+        [200, 6000],
+        [200, 5000],
+      ]),
+    ).toMatchObject({ from: 100, to: 5100 });
+  });
+});
