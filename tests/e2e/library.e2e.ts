@@ -54,6 +54,10 @@ describe('library and reaction enthalpy (signed out)', () => {
     const row = page.getByTestId('species-row').filter({ hasText: 'C2H6O(l)' });
     await row.first().waitFor();
     await screenshot(page, 'library-search-ethanol');
+    // Sorting is done by the server: the header says which way, the address keeps it.
+    await page.getByRole('button', { name: /ΔfH°/ }).click();
+    await expect.poll(() => page.locator('th[aria-sort="ascending"]').textContent()).toContain('ΔfH°');
+    expect(page.url()).toContain('sort=deltaFH');
     // The selected ΔfH° of liquid ethanol is typed from memory in the seed: the row says so in words.
     expect(await row.first().textContent()).toContain('typed from memory');
     await row.first().locator('a.key-link').click();
