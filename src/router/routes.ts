@@ -21,6 +21,18 @@ export const routes: RouteRecordRaw[] = [
     meta: { access: 'public', title: 'Workbench' },
   },
   {
+    path: '/library',
+    name: 'library',
+    component: () => import('@/views/LibraryView.vue'),
+    meta: { access: 'public', title: 'Library' },
+  },
+  {
+    path: '/library/species/:speciesId',
+    name: 'library-species',
+    component: () => import('@/views/SpeciesView.vue'),
+    meta: { access: 'public', title: 'Species' },
+  },
+  {
     path: '/sign-in',
     name: 'sign-in',
     component: () => import('@/views/SignInView.vue'),
