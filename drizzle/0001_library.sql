@@ -31,6 +31,7 @@ CREATE TABLE "library_reactions" (
 	"molality" double precision,
 	"source_id" uuid NOT NULL,
 	"table_ref" text,
+	"independent" boolean DEFAULT true NOT NULL,
 	"provenance" text NOT NULL,
 	"provenance_note" text,
 	"valid_from" integer NOT NULL,
@@ -122,6 +123,27 @@ CREATE TABLE "library_values" (
 	"valid_to" integer
 );
 --> statement-breakpoint
+CREATE TABLE "team_derived_values" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"team_id" uuid NOT NULL,
+	"species_key" text NOT NULL,
+	"formula" text NOT NULL,
+	"hill" text NOT NULL,
+	"charge" integer NOT NULL,
+	"phase" text NOT NULL,
+	"descriptor" text,
+	"library_species_id" uuid,
+	"delta_h" numeric NOT NULL,
+	"uncertainty" double precision,
+	"uncertainty_missing" jsonb DEFAULT '[]'::jsonb NOT NULL,
+	"derivation" jsonb NOT NULL,
+	"library_revision" integer NOT NULL,
+	"note" text,
+	"created_by" uuid,
+	"created_by_name" text NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
 ALTER TABLE "library_models" ADD CONSTRAINT "library_models_valid_from_library_revisions_number_fk" FOREIGN KEY ("valid_from") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_models" ADD CONSTRAINT "library_models_valid_to_library_revisions_number_fk" FOREIGN KEY ("valid_to") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_reactions" ADD CONSTRAINT "library_reactions_valid_from_library_revisions_number_fk" FOREIGN KEY ("valid_from") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
@@ -136,6 +158,8 @@ ALTER TABLE "library_species" ADD CONSTRAINT "library_species_valid_from_library
 ALTER TABLE "library_species" ADD CONSTRAINT "library_species_valid_to_library_revisions_number_fk" FOREIGN KEY ("valid_to") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_values" ADD CONSTRAINT "library_values_valid_from_library_revisions_number_fk" FOREIGN KEY ("valid_from") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "library_values" ADD CONSTRAINT "library_values_valid_to_library_revisions_number_fk" FOREIGN KEY ("valid_to") REFERENCES "public"."library_revisions"("number") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "team_derived_values" ADD CONSTRAINT "team_derived_values_team_id_teams_id_fk" FOREIGN KEY ("team_id") REFERENCES "public"."teams"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "team_derived_values" ADD CONSTRAINT "team_derived_values_created_by_users_id_fk" FOREIGN KEY ("created_by") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 CREATE UNIQUE INDEX "library_models_current_id" ON "library_models" USING btree ("id") WHERE "library_models"."valid_to" is null;--> statement-breakpoint
 CREATE INDEX "library_models_species" ON "library_models" USING btree ("species_id");--> statement-breakpoint
 CREATE INDEX "library_models_validity" ON "library_models" USING btree ("valid_from","valid_to");--> statement-breakpoint
@@ -153,4 +177,5 @@ CREATE INDEX "library_species_validity" ON "library_species" USING btree ("valid
 CREATE INDEX "library_species_hill" ON "library_species" USING btree ("hill");--> statement-breakpoint
 CREATE UNIQUE INDEX "library_values_current_id" ON "library_values" USING btree ("id") WHERE "library_values"."valid_to" is null;--> statement-breakpoint
 CREATE INDEX "library_values_species" ON "library_values" USING btree ("species_id");--> statement-breakpoint
-CREATE INDEX "library_values_validity" ON "library_values" USING btree ("valid_from","valid_to");
+CREATE INDEX "library_values_validity" ON "library_values" USING btree ("valid_from","valid_to");--> statement-breakpoint
+CREATE INDEX "team_derived_values_team" ON "team_derived_values" USING btree ("team_id","species_key");

@@ -1,4 +1,10 @@
-import { deriveInputSchema, deriveResultSchema } from '@shared/schemas/derive';
+import {
+  consistencyInputSchema,
+  consistencyResultSchema,
+  deriveInputSchema,
+  deriveResultSchema,
+} from '@shared/schemas/derive';
+import { checkConsistency } from '../services/consistency.service';
 import { deriveReactionEnthalpy } from '../services/derive.service';
 import { defineRoute } from './registry';
 
@@ -16,5 +22,18 @@ export const deriveRoutes = [
     request: { body: deriveInputSchema },
     responses: { 200: deriveResultSchema },
     handler: ({ ctx, body }) => deriveReactionEnthalpy(ctx, body),
+  }),
+
+  defineRoute({
+    method: 'post',
+    path: '/library/consistency',
+    summary: 'Consistency check: fit a group of species to the measured reactions that link them',
+    description:
+      'Curators only. Generalised least squares over every independent measured reaction involving the group, the other species held at their library values with their uncertainties in the covariance; residuals over 2σ flagged; Birge ratio. At most 200 species and 2,000 measurements.',
+    tags: ['library'],
+    access: { site: 'curator' },
+    request: { body: consistencyInputSchema },
+    responses: { 200: consistencyResultSchema },
+    handler: ({ ctx, body }) => checkConsistency(ctx, body),
   }),
 ];

@@ -3,6 +3,7 @@ import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
 import { balanceRoutes } from './balance.routes';
 import { deriveRoutes } from './derive.routes';
+import { derivedValueRoutes } from './derived-values.routes';
 import { healthRoutes } from './health.routes';
 import { invitationRoutes } from './invitations.routes';
 import { libraryRoutes } from './library.routes';
@@ -27,6 +28,7 @@ const resourceRoutes: AnyRoute[] = [
   ...libraryRoutes,
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
+  ...derivedValueRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

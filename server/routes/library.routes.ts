@@ -7,8 +7,10 @@ import {
   speciesQuerySchema,
   libraryImportInputSchema,
   libraryImportResultSchema,
+  sourceListQuerySchema,
+  sourceListSchema,
 } from '@shared/schemas/library';
-import { getSpecies, importLibraryFiles, listRevisions, listSpecies } from '../services/library.service';
+import { getSpecies, importLibraryFiles, listRevisions, listSources, listSpecies } from '../services/library.service';
 import { requireActor } from '../context';
 import { defineRoute } from './registry';
 
@@ -37,6 +39,17 @@ export const libraryRoutes = [
     request: { params: speciesParamsSchema, query: speciesDetailQuerySchema },
     responses: { 200: speciesDetailSchema },
     handler: ({ ctx, params, query }) => getSpecies(ctx, { speciesId: params.speciesId, revision: query.revision }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/sources',
+    summary: 'Every source of the library, with how many values, models and reactions cite it',
+    tags: ['library'],
+    access: 'public',
+    rateLimit: 'calc',
+    request: { query: sourceListQuerySchema },
+    responses: { 200: sourceListSchema },
+    handler: ({ ctx, query }) => listSources(ctx, { revision: query.revision }),
   }),
   defineRoute({
     method: 'get',

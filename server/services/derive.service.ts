@@ -26,6 +26,8 @@ import { keyOfSpecies } from '../library/seed-set';
 import { exact, libraryNetworkOf } from '../library/network';
 import { hillKey, selectedModel, selectedValue, type LibrarySnapshot } from '../library/snapshot';
 import type { ServiceContext } from '../context';
+import { teamValuesAsReactions } from '../library/team-values';
+import { teamValues } from './team-values.service';
 import { snapshotFor } from './library.service';
 import { preparedModel, temperatureOf } from './reaction-enthalpy.service';
 
@@ -41,7 +43,7 @@ export const defaultDeriveLimits: DeriveLimits = { maxSteps: 6, maxExamined: 20_
 type Warning = DeriveResult['warnings'][number];
 
 /** A species written in a target or given reaction, matched to the library where it is there. */
-interface ReadSpecies {
+export interface ReadSpecies {
   key: string;
   charge: number;
   phase: string | null;
@@ -215,9 +217,26 @@ function suggestionFor(species: string[]): string {
  * shared inputs, and combines them.
  */
 export async function deriveReactionEnthalpy(ctx: ServiceContext, input: DeriveInput): Promise<DeriveResult> {
+  return (await runDerivation(ctx, input)).result;
+}
+
+/** A derivation with what saving it needs: the target's species, the combiner's answer, the inputs. */
+export interface DerivationRun {
+  result: DeriveResult;
+  derivation: Derivation;
+  targetTerms: { species: ReadSpecies; coefficient: Fraction }[];
+  referenceKeys: ReadonlySet<string>;
+  inputs: ReadonlyMap<string, InputInfo>;
+  snapshot: LibrarySnapshot;
+}
+
+export async function runDerivation(ctx: ServiceContext, input: DeriveInput): Promise<DerivationRun> {
   const limits = defaultDeriveLimits;
   const snapshot = await snapshotFor(ctx.library, input.revision);
   const warnings: Warning[] = [];
+  const team = input.teamId
+    ? teamValuesAsReactions(await teamValues(ctx, input.teamId, snapshot, warnings), warnings)
+    : null;
   const given = input.reactions ?? [];
   const using = input.using ?? (given.length > 0 ? 'both' : 'library');
   if (using === 'given' && given.length === 0)
@@ -273,9 +292,11 @@ export async function deriveReactionEnthalpy(ctx: ServiceContext, input: DeriveI
   });
 
   let network: HessNetwork;
+  const teamReactions = using === 'given' ? [] : (team?.reactions ?? []);
+  if (team && using !== 'given') for (const [id, info] of team.inputs) inputs.set(id, info);
   if (using === 'given') network = buildHessNetwork(givenReactions, extraSpecies);
-  else if (using === 'library') network = base.network;
-  else network = extendHessNetwork(base.network, givenReactions, extraSpecies);
+  else if (using === 'library' && teamReactions.length === 0) network = base.network;
+  else network = extendHessNetwork(base.network, [...teamReactions, ...givenReactions], extraSpecies);
   if (using !== 'given' && base.excluded.length > 0)
     warnings.push({
       code: 'reactions_excluded',
@@ -316,7 +337,14 @@ export async function deriveReactionEnthalpy(ctx: ServiceContext, input: DeriveI
       code: 'mixed_conventions',
       message: `${derivation.search.rejectedMixedConventions} combination(s) were left out because they would mix the aqueous-ion and gaseous-ion conventions.`,
     });
-  return present(snapshot, target.equation, derivation, warnings);
+  return {
+    result: present(snapshot, target.equation, derivation, warnings),
+    derivation,
+    targetTerms: target.terms,
+    referenceKeys: base.referenceKeys,
+    inputs,
+    snapshot,
+  };
 }
 
 const energy = (value: number, uncertainty: number | null) => ({ value, uncertainty, unit: 'kJ/mol' as const });
@@ -337,7 +365,11 @@ function present(snapshot: LibrarySnapshot, target: string, derivation: Derivati
         ref:
           r.kind === 'given'
             ? { kind: 'given' as const, index: r.refIndex! }
-            : { kind: r.kind === 'formation' && r.basis ? ('derived' as const) : r.kind, id: r.refId! },
+            : {
+                kind:
+                  r.id.startsWith('derived:') || (r.kind === 'formation' && r.basis) ? ('derived' as const) : r.kind,
+                id: r.refId!,
+              },
         reactionDeltaH: energy(r.deltaH.valueOf(), u),
         source: r.source ?? null,
         species: speciesKey,

@@ -11,6 +11,7 @@ import type {
   SpeciesSummary,
   LibraryImportInput,
   LibraryImportResult,
+  SourceList,
 } from '@shared/schemas/library';
 import type { ActorContext, ServiceContext } from '../context';
 import {
@@ -309,4 +310,31 @@ function importProblems(problems: SetProblem[]): AppError {
       total: problems.length,
     },
   );
+}
+
+/** Every source at a revision, by key, with how many values, models and reactions cite it. */
+export async function listSources(
+  ctx: ServiceContext,
+  { revision }: { revision?: number | undefined },
+): Promise<SourceList> {
+  const snapshot = await snapshotFor(ctx.library, revision);
+  const count = (ids: string[]) => {
+    const map = new Map<string, number>();
+    for (const id of ids) map.set(id, (map.get(id) ?? 0) + 1);
+    return map;
+  };
+  const values = count([...snapshot.values.values()].flat().map((v) => v.sourceId));
+  const models = count([...snapshot.models.values()].flat().map((m) => m.sourceId));
+  const reactions = count(snapshot.reactions.map((r) => r.sourceId));
+  return {
+    items: [...snapshot.sources.values()]
+      .sort((a, b) => a.key.localeCompare(b.key))
+      .map((s) => ({
+        ...presentSource(s),
+        values: values.get(s.id) ?? 0,
+        models: models.get(s.id) ?? 0,
+        reactions: reactions.get(s.id) ?? 0,
+      })),
+    libraryRevision: snapshot.revision,
+  };
 }

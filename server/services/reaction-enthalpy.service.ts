@@ -37,6 +37,8 @@ import {
   type SpeciesEntry,
   type ValueEntry,
 } from '../library/snapshot';
+import type { TeamValue } from '../library/team-values';
+import { teamValues } from './team-values.service';
 import { snapshotFor } from './library.service';
 import type { ServiceContext } from '../context';
 
@@ -79,6 +81,7 @@ export function temperatureOf(input: TemperatureInput | undefined, field = 'temp
 function resolveTerms(
   snapshot: LibrarySnapshot,
   terms: ReactionTerm[],
+  team: readonly TeamValue[] = [],
 ): {
   resolved: ResolvedTerm[];
   warnings: ReactionEnthalpyResult['warnings'];
@@ -89,6 +92,20 @@ function resolveTerms(
   for (const term of terms) {
     const entries = snapshot.speciesByHill.get(hillKey(term.hill, term.charge)) ?? [];
     const r = resolveSpecies(term, entries);
+    // A team's derived value stands in for a species the library lacks or has no ΔfH° for.
+    const teamValue =
+      !r.ok || !selectedValue(snapshot, r.entry.id, 'dfH298')
+        ? matchTeamValue(term, team, r.ok ? r.entry : null)
+        : null;
+    if (teamValue) {
+      warnings.push({
+        code: 'team_derived_value',
+        message: `${teamValue.key}: the team's derived ΔfH° (${teamValue.deltaHText} kJ/mol, derived by Hess's law) is used.`,
+        term: term.index,
+      });
+      resolved.push(teamTerm(snapshot, term, teamValue));
+      continue;
+    }
     if (!r.ok) {
       problems.push({
         term: term.index,
@@ -118,6 +135,84 @@ function resolveTerms(
     );
   }
   return { resolved, warnings };
+}
+
+/** The team value a written species means: same Hill formula, charge and phase (and descriptor). */
+function matchTeamValue(term: ReactionTerm, team: readonly TeamValue[], entry: SpeciesEntry | null): TeamValue | null {
+  if (entry) return team.find((v) => v.key === entry.key) ?? null;
+  const phase = term.phase === 's' ? 'cr' : term.phase;
+  const matches = team.filter(
+    (v) =>
+      v.hill === term.hill &&
+      v.charge === term.charge &&
+      (phase === null || v.phase === phase) &&
+      (term.descriptor === null || v.descriptor === term.descriptor),
+  );
+  return matches.length === 1 ? matches[0]! : null;
+}
+
+/** Source id that marks a team's derived value (not a library source). */
+const teamSourceId = (valueId: string) => `team:${valueId}`;
+
+/** A resolved term for a team value: a species entry and a derived ΔfH° of its own. */
+function teamTerm(snapshot: LibrarySnapshot, term: ReactionTerm, v: TeamValue): ResolvedTerm {
+  const library = snapshot.speciesByKey.get(v.key);
+  const species: SpeciesEntry = library ?? {
+    id: v.id,
+    key: v.key,
+    formula: v.formula,
+    hill: v.hill,
+    charge: v.charge,
+    phase: v.phase as SpeciesEntry['phase'],
+    descriptor: v.descriptor,
+    name: `${v.key} (team's derived value)`,
+    synonyms: [],
+    cas: null,
+    inchi: null,
+    inchikey: null,
+    referenceState: null,
+    molarMass: v.molarMass,
+    note: null,
+    validFrom: snapshot.revision,
+  };
+  return {
+    ...term,
+    species,
+    dfH: {
+      id: v.id,
+      speciesId: species.id,
+      property: 'dfH298',
+      value: v.deltaH,
+      valueText: v.deltaHText,
+      uncertaintyKind: v.uncertainty === null ? 'none' : 'standard',
+      uncertaintyStated: v.uncertainty,
+      coverageK: null,
+      standardUncertainty: v.uncertainty,
+      uncertaintyRule: "derived by Hess's law in Thermoledger: the route's standard uncertainty",
+      sourceId: teamSourceId(v.id),
+      tableRef: null,
+      entryNote: null,
+      provenance: 'derived',
+      provenanceNote: "the team's derived value",
+      pressureBar: 1,
+      ionConvention: null,
+      derivation: null,
+      validFrom: snapshot.revision,
+    },
+    s298: library ? selectedValue(snapshot, library.id, 'S298') : null,
+    model: library ? selectedModel(snapshot, library.id) : null,
+  };
+}
+
+/** The source a value cites: a library source, or the team's derived value. */
+function sourceRefFor(snapshot: LibrarySnapshot, sourceId: string) {
+  if (sourceId.startsWith('team:'))
+    return {
+      id: sourceId.slice(5),
+      key: 'team-derived',
+      citation: "The team's derived value (Hess's law, Thermoledger)",
+    };
+  return sourceRef(sourceOf(snapshot, sourceId));
 }
 
 function thermoTerms(resolved: ResolvedTerm[]): ReactionThermoTerm[] {
@@ -156,8 +251,14 @@ function explainRange(snapshot: LibrarySnapshot, resolved: ResolvedTerm[], error
         : `The library holds no form of ${term.species.formula} with a model at ${Number(t.toFixed(2))} K.`,
     );
   }
+  const terms = error.problems.flatMap((p) =>
+    resolved
+      .filter((r) => r.species.key === p.species)
+      .map((r) => ({ term: r.index, species: p.species, kind: p.kind })),
+  );
   throw new ChemistryError('unprocessable', `${error.message} ${hints.join(' ')}`.trim(), {
     ...error.details,
+    terms,
     alternatives,
     libraryRevision: snapshot.revision,
   });
@@ -194,8 +295,8 @@ function present(
   for (const t of resolved) {
     for (const item of [t.dfH, t.s298, t.model]) {
       if (item) {
-        const source = sourceOf(snapshot, item.sourceId);
-        sources.set(source.id, sourceRef(source));
+        const source = sourceRefFor(snapshot, item.sourceId);
+        sources.set(source.id, source);
       }
     }
   }
@@ -212,7 +313,11 @@ function present(
       message:
         'Constant-Cp estimate (Cp at 298.15 K held constant, phase changes ignored), as asked: it can be several kJ/mol off at high temperature.',
     });
-  for (const note of result.notes) warnings.push({ code: 'note', message: note });
+  for (const note of result.notes) {
+    // The incomplete uncertainty is said once, above, with the species named.
+    if (missingKeys.size > 0 && /uncertaint/i.test(note) && [...missingKeys].some((k) => note.includes(k))) continue;
+    warnings.push({ code: 'note', message: note });
+  }
   const transitions = result.species.flatMap((s) =>
     (s.crossings ?? []).map((c) => {
       const term = byKey.get(s.species)!;
@@ -254,7 +359,10 @@ function present(
       key: t.species.key,
       name: t.species.name,
       deltaFH: t.dfH ? { value: t.dfH.value, uncertainty: t.dfH.standardUncertainty } : null,
-      source: t.dfH ? sourceRef(sourceOf(snapshot, t.dfH.sourceId)) : null,
+      source: t.dfH ? sourceRefFor(snapshot, t.dfH.sourceId) : null,
+      provenance: t.dfH?.provenance ?? null,
+      molarMass: t.species.molarMass,
+      modelRange: t.model ? ([t.model.tMin, t.model.tMax] as [number, number]) : null,
     })),
     contributions: result.species.map((s) => {
       const c = contributionOf.get(s.species);
@@ -293,7 +401,11 @@ export async function evaluateReactionEnthalpy(
   const snapshot = await snapshotFor(ctx.library, input.revision);
   const reaction = readBalancedReaction(input.equation);
   const temperature = temperatureOf(input.temperature);
-  const { resolved, warnings } = resolveTerms(snapshot, reaction.terms);
+  const teamWarnings: ReactionEnthalpyResult['warnings'] = [];
+  const team = input.teamId ? await teamValues(ctx, input.teamId, snapshot, teamWarnings) : [];
+  const resolution = resolveTerms(snapshot, reaction.terms, team);
+  const resolved = resolution.resolved;
+  const warnings = [...teamWarnings, ...resolution.warnings];
   const constantCp = input.constantCpEstimate ?? false;
   const result = evaluate(snapshot, resolved, temperature, constantCp);
   const reply = present(snapshot, reaction.equation, resolved, result, [...reaction.warnings, ...warnings]);
@@ -407,7 +519,11 @@ export async function evaluateReactionHeat(ctx: ServiceContext, input: ReactionH
   const snapshot = await snapshotFor(ctx.library, input.revision);
   const reaction = readBalancedReaction(input.equation);
   const temperature = temperatureOf(input.temperature);
-  const { resolved, warnings } = resolveTerms(snapshot, reaction.terms);
+  const teamWarnings: ReactionEnthalpyResult['warnings'] = [];
+  const team = input.teamId ? await teamValues(ctx, input.teamId, snapshot, teamWarnings) : [];
+  const resolution = resolveTerms(snapshot, reaction.terms, team);
+  const resolved = resolution.resolved;
+  const warnings = [...teamWarnings, ...resolution.warnings];
   const fieldError = (path: (string | number)[], message: string) =>
     new AppError('validation_failed', `${path.join('.')}: ${message}`, {
       issues: [{ path: ['body', ...path], message }],

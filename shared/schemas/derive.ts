@@ -93,3 +93,41 @@ export const deriveResultSchema = z.object({
   warnings: z.array(warningSchema),
 });
 export type DeriveResult = z.infer<typeof deriveResultSchema>;
+
+/** POST /api/v1/library/consistency (curators): fit a group of species to the measurements that link them. */
+export const consistencyInputSchema = z.object({
+  /** Species keys as the library writes them, e.g. ["CO(g)", "CO2(g)"]. */
+  species: z.array(z.string().min(1).max(200)).min(1, 'Pick at least one species.').max(200),
+  revision: revisionNumberSchema.optional(),
+});
+export type ConsistencyInput = z.infer<typeof consistencyInputSchema>;
+
+export const consistencyResultSchema = z.object({
+  fitted: z.array(
+    z.object({
+      species: z.string(),
+      value: z.number(),
+      uncertainty: z.number(),
+      /** The library's selected value now, for comparison. */
+      library: z.object({ value: z.number(), uncertainty: z.number().nullable() }).nullable(),
+    }),
+  ),
+  residuals: z.array(
+    z.object({
+      reaction: z.string(),
+      equation: z.string(),
+      residual: z.number(),
+      uncertainty: z.number(),
+      normalized: z.number(),
+      flagged: z.boolean(),
+    }),
+  ),
+  chiSquare: z.number(),
+  degreesOfFreedom: z.number().int(),
+  birgeRatio: z.number().nullable(),
+  /** Measurements left out, with the reason. */
+  excluded: z.array(z.object({ reaction: z.string(), reason: z.string() })),
+  heldWithoutUncertainty: z.array(z.string()),
+  libraryRevision: z.number().int(),
+});
+export type ConsistencyResult = z.infer<typeof consistencyResultSchema>;

@@ -254,3 +254,13 @@ export const libraryImportResultSchema = z.object({
   }),
 });
 export type LibraryImportResult = z.infer<typeof libraryImportResultSchema>;
+
+/** GET /api/v1/sources: every source of the library at a revision, with how many values cite it. */
+export const sourceListSchema = z.object({
+  items: z.array(
+    sourceSchema.extend({ values: z.number().int(), models: z.number().int(), reactions: z.number().int() }),
+  ),
+  libraryRevision: z.number().int(),
+});
+export type SourceList = z.infer<typeof sourceListSchema>;
+export const sourceListQuerySchema = z.object({ revision: revisionNumberSchema.optional() });

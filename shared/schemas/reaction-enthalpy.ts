@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { fractionTextSchema } from './balance';
 import { revisionNumberSchema, sourceRefSchema, transitionSchema } from './library';
-import { libraryPhaseSchema } from './library-core';
+import { libraryPhaseSchema, provenanceSchema } from './library-core';
 
 /**
  * POST /api/v1/reaction-enthalpy and /reaction-heat: public and stable. Energies are JSON numbers
@@ -23,6 +23,8 @@ export const reactionEnthalpyInputSchema = z.object({
   revision: revisionNumberSchema.optional(),
   /** Use Cp(298.15 K) of each species as constant instead of its model (flagged in the reply). */
   constantCpEstimate: z.boolean().optional(),
+  /** A team whose derived values stand in for species the library lacks (the caller must belong to it). */
+  teamId: z.uuid().optional(),
   /** Also ΔrH° at evenly spaced temperatures from `from` to `to` (K), for a plot; at most 200 points. */
   curve: z
     .object({
@@ -69,6 +71,12 @@ export const enthalpyTermSchema = z.object({
   /** ΔfH°(298.15 K) used, or null for a species known only through its model at T. */
   deltaFH: z.object({ value: z.number(), uncertainty: z.number().nullable() }).nullable(),
   source: sourceRefSchema.nullable(),
+  /** Provenance of the ΔfH° used (typed from memory is shown as such). */
+  provenance: provenanceSchema.nullable(),
+  /** g/mol. */
+  molarMass: z.number(),
+  /** Valid range of the species' heat-capacity model, K, or null without one. */
+  modelRange: z.tuple([z.number(), z.number()]).nullable(),
 });
 
 export const contributionSchema = z.object({

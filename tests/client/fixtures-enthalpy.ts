@@ -44,6 +44,10 @@ export function esterification(overrides: Partial<ReactionEnthalpyResult> = {}):
     name,
     deltaFH: { value, uncertainty: u },
     source,
+    provenance: 'memory' as const,
+    // Molar masses from the CIAAW 2021 standard atomic weights (hand sums); no model range here.
+    molarMass: { CH3COOH: 60.052, C2H5OH: 46.069, CH3COOC2H5: 88.106, H2O: 18.015 }[formula] ?? 0,
+    modelRange: null,
   });
   const total = 0.04 + 0.0225 + 0.16 + 0.0004;
   return {

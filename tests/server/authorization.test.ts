@@ -60,10 +60,15 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/species': 'public',
   'GET /api/v1/species/:speciesId': 'public',
   'GET /api/v1/library/revisions': 'public',
+  'GET /api/v1/sources': 'public',
   'POST /api/v1/library/imports': { site: 'site_admin' },
   'POST /api/v1/reaction-enthalpy': 'public',
   'POST /api/v1/reaction-heat': 'public',
   'POST /api/v1/derive': 'public',
+  'POST /api/v1/library/consistency': { site: 'curator' },
+  'GET /api/v1/teams/:teamId/derived-values': { team: 'viewer' },
+  'POST /api/v1/teams/:teamId/derived-values': { team: 'member' },
+  'DELETE /api/v1/teams/:teamId/derived-values/:valueId': { team: 'member' },
   'GET /api/v1/test/curator-probe': { site: 'curator' },
 };
 

@@ -9,3 +9,4 @@ export * from './password-resets';
 export * from './audit-log';
 export * from './notes';
 export * from './library';
+export * from './derived-values';

@@ -21,6 +21,8 @@ export interface RouteCombination {
   /** Per route: (yᵢ − ŷ) / √(Vᵢᵢ − var ŷ), and whether it is within ±2. */
   normalizedResiduals: number[];
   agrees: boolean[];
+  /** The weights λ of the combination, ŷ = Σ λᵢ yᵢ (they sum to 1). */
+  weights: number[];
 }
 
 /**
@@ -45,6 +47,7 @@ export function combineRoutes(values: readonly number[], covariance: readonly (r
       consistent: true,
       normalizedResiduals: [0],
       agrees: [true],
+      weights: [1],
     };
   }
   const V = new Matrix(covariance.map((row) => [...row]));
@@ -79,5 +82,6 @@ export function combineRoutes(values: readonly number[], covariance: readonly (r
     consistent: pValue === null || pValue >= AGREEMENT_SIGNIFICANCE,
     normalizedResiduals,
     agrees: normalizedResiduals.map((z) => Math.abs(z) <= ROUTE_FLAG_SIGMAS),
+    weights: weights.to1DArray().map((w) => w / information),
   };
 }

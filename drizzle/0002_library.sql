@@ -1,1 +1,0 @@
-ALTER TABLE "library_reactions" ADD COLUMN "independent" boolean DEFAULT true NOT NULL;
