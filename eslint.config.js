@@ -183,7 +183,8 @@ export default tseslint.config(
       'vue/no-restricted-syntax': [
         'error',
         {
-          selector: "VElement[rawName='NCard'] > VElement[name='template'] > VStartTag > VAttribute[directive=true][key.argument.name='header']",
+          selector:
+            "VElement[rawName='NCard'] > VElement[name='template'] > VStartTag > VAttribute[directive=true][key.argument.name='header']",
           message: 'Use SectionCard: the NCard header slot renders headings without a level.',
         },
       ],
