@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
+import { amendmentRoutes } from './amendments.routes';
 import { balanceRoutes } from './balance.routes';
 import { deriveRoutes } from './derive.routes';
 import { derivedValueRoutes } from './derived-values.routes';
@@ -26,6 +27,7 @@ const resourceRoutes: AnyRoute[] = [
   ...adminRoutes,
   ...balanceRoutes,
   ...libraryRoutes,
+  ...amendmentRoutes,
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,
