@@ -10,7 +10,10 @@ import {
   amendmentReadQuerySchema,
   amendmentReasonInputSchema,
   MAX_AMENDMENT_ENTRIES,
+  evidenceFileListSchema,
+  evidenceFileParamsSchema,
 } from '@shared/schemas/amendments';
+import { addEvidence, downloadEvidence, listEvidence, removeEvidence, type UploadedFile } from '../services/amendment-files.service';
 import { requireActor } from '../context';
 import {
   acceptAmendment,
@@ -180,5 +183,54 @@ export const amendmentRoutes = [
     request: { params: amendmentParamsSchema, body: amendmentCommentInputSchema },
     responses: { 201: amendmentCommentSchema },
     handler: ({ ctx, params, body }) => addComment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/amendments/:amendmentId/files',
+    summary: 'The evidence files of an amendment',
+    tags: ['amendments'],
+    access: 'signed_in',
+    request: { params: amendmentParamsSchema },
+    responses: { 200: evidenceFileListSchema },
+    handler: ({ ctx, params }) => listEvidence(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/files',
+    summary: 'Attach evidence files (its author, before the amendment is decided)',
+    description:
+      'multipart/form-data, files in the field `files`. Accepted: PDF, CSV (or other UTF-8 text without NUL bytes), XLSX, PNG, JPEG, GIF, WebP — the type is read from the content, never from the name or the declared type (415 otherwise, naming the file). Limits (413 naming the limit): EVIDENCE_MAX_FILE_MB per file, EVIDENCE_MAX_FILES_PER_UPLOAD per request, EVIDENCE_MAX_FILES_PER_AMENDMENT per amendment. All files of a request are stored, or none.',
+    tags: ['amendments'],
+    access: 'proposer',
+    upload: { field: 'files' },
+    request: { params: amendmentParamsSchema },
+    responses: { 201: evidenceFileListSchema },
+    handler: ({ ctx, params, req }) =>
+      addEvidence(requireActor(ctx), {
+        amendmentId: params.amendmentId,
+        files: (Array.isArray(req.files) ? req.files : []) as UploadedFile[],
+      }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/amendments/:amendmentId/files/:fileId',
+    summary: 'Download one evidence file',
+    description:
+      'The file’s bytes, always as an attachment (Content-Disposition: attachment, X-Content-Type-Options: nosniff, a sandboxing Content-Security-Policy), with the type read from its content at upload.',
+    tags: ['amendments'],
+    access: 'signed_in',
+    request: { params: evidenceFileParamsSchema },
+    responses: { 200: null },
+    handler: ({ ctx, params }) => downloadEvidence(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/amendments/:amendmentId/files/:fileId',
+    summary: 'Remove an evidence file (its author, before the amendment is decided)',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: evidenceFileParamsSchema },
+    responses: { 204: null },
+    handler: ({ ctx, params }) => removeEvidence(requireActor(ctx), params),
   }),
 ];

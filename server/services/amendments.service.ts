@@ -34,6 +34,7 @@ import { finalStates, mayTake, nextState, refusal, type Reviewer, type transitio
 import { applyLibraryChanges, SetConflictError } from '../library/apply-set';
 import { currentRevision, revisionsAfter, setRevisionDetail, withNewRevision } from '../library/revisions';
 import { computeImpact } from './amendment-impact.service';
+import { evidenceRows, presentEvidence } from './amendment-files.service';
 import { isProposer, teamRolesOf } from './membership.service';
 import { snapshotFor } from './library.service';
 
@@ -286,19 +287,24 @@ export async function listAmendments(ctx: ActorContext, query: AmendmentListQuer
 /** Counts for the navigation: by state (drafts: the caller's own), awaiting review, needing the caller. */
 export async function amendmentCounts(ctx: ActorContext, _input: Record<string, never> = {}): Promise<AmendmentCounts> {
   const me = ctx.actor.user.id;
+  // One parameter per expression: the same value bound twice is not the same GROUP BY expression to PostgreSQL.
   const rows = await ctx.db
-    .select({ state: amendments.state, mine: sql<boolean>`${amendments.authorId} = ${me}`, n: count() })
+    .select({
+      state: amendments.state,
+      n: count(),
+      mine: sql<number>`count(*) filter (where ${amendments.authorId} = ${me})`.mapWith(Number),
+    })
     .from(amendments)
     .where(or(ne(amendments.state, 'draft'), eq(amendments.authorId, me)))
-    .groupBy(amendments.state, sql`${amendments.authorId} = ${me}`);
+    .groupBy(amendments.state);
   const byState = Object.fromEntries(amendmentStates.map((s) => [s, 0])) as AmendmentCounts['byState'];
   let awaiting = 0;
   let needsMyAction = 0;
   for (const r of rows) {
     const n = Number(r.n);
     byState[r.state] += n;
-    if (r.state === 'open' && !r.mine) awaiting += n;
-    if (r.mine && (r.state === 'draft' || r.state === 'returned')) needsMyAction += n;
+    if (r.state === 'open') awaiting += n - r.mine;
+    if (r.state === 'draft' || r.state === 'returned') needsMyAction += r.mine;
   }
   return { byState, awaitingReview: isCurator(ctx) ? awaiting : null, needsMyAction };
 }
@@ -309,7 +315,7 @@ export async function getAmendment(
   { amendmentId, impact = true }: { amendmentId: string; impact?: boolean },
 ): Promise<AmendmentDetail> {
   const row = await loadVisible(ctx, ctx.db, amendmentId);
-  const [entries, comments, events, extras, latest, who] = await Promise.all([
+  const [entries, comments, events, extras, latest, who, files] = await Promise.all([
     loadEntries(ctx.db, row.id),
     ctx.db
       .select()
@@ -324,6 +330,7 @@ export async function getAmendment(
     listExtras(ctx.db, [row.id]),
     currentRevision(ctx.db),
     reviewerOf(ctx, row),
+    evidenceRows(ctx, row.id),
   ]);
   const current = latest ?? row.baseRevision;
   const open = !finalStates.includes(row.state);
@@ -355,6 +362,7 @@ export async function getAmendment(
     diff: row.diff,
     sources: [...sources.values()],
     comments: comments.map(presentComment),
+    files: files.map(presentEvidence),
     history: events.map(presentEvent),
     currentRevision: current,
     conflicts,

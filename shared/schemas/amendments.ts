@@ -521,6 +521,42 @@ export const amendmentPermissionsSchema = z.object({
   comment: z.boolean(),
 });
 
+// ——— Evidence files ———
+
+/** The types evidence may have, as read from the content (never from the name or the client's claim). */
+export const evidenceMediaTypes = {
+  'application/pdf': 'PDF',
+  'text/csv': 'CSV',
+  'text/plain': 'plain text',
+  'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet': 'XLSX',
+  'image/png': 'PNG image',
+  'image/jpeg': 'JPEG image',
+  'image/gif': 'GIF image',
+  'image/webp': 'WebP image',
+} as const;
+export type EvidenceMediaType = keyof typeof evidenceMediaTypes;
+
+export const evidenceFileSchema = z.object({
+  id: z.uuid(),
+  /** The name it was uploaded under (shown and offered on download; the file is stored under another). */
+  name: z.string(),
+  mediaType: z.string(),
+  size: z.number().int(),
+  sha256: z.string(),
+  uploadedBy: person,
+  createdAt: dateTime,
+  /** Where to download it (always as an attachment). */
+  href: z.string(),
+});
+export type EvidenceFile = z.infer<typeof evidenceFileSchema>;
+
+export const evidenceFileListSchema = z.object({ items: z.array(evidenceFileSchema) });
+export type EvidenceFileList = z.infer<typeof evidenceFileListSchema>;
+
+export const evidenceFileParamsSchema = amendmentParamsSchema.extend({
+  fileId: z.uuid({ message: 'Not a file id.' }),
+});
+
 export const amendmentDetailSchema = amendmentSummarySchema.extend({
   rationale: z.string(),
   entries: z.array(amendmentEntrySchema),
@@ -528,6 +564,8 @@ export const amendmentDetailSchema = amendmentSummarySchema.extend({
   diff: z.array(diffItemSchema),
   sources: z.array(amendmentSourceSchema),
   comments: z.array(amendmentCommentSchema),
+  /** Evidence files (PDF, CSV, XLSX, images). */
+  files: z.array(evidenceFileSchema),
   history: z.array(amendmentEventSchema),
   currentRevision: z.number().int(),
   /** Later revisions that changed the same things: accepting needs a rebase first. */

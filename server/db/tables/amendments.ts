@@ -120,3 +120,28 @@ export const amendmentComments = pgTable(
   },
   (t) => [index('amendment_comments_amendment').on(t.amendmentId, t.createdAt)],
 );
+
+/**
+ * Evidence files of an amendment. The bytes live in the evidence directory under `stored_name`
+ * (random, never derived from the upload); this row keeps what the uploader called it and the
+ * type read from its content.
+ */
+export const amendmentFiles = pgTable(
+  'amendment_files',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    amendmentId: uuid('amendment_id')
+      .notNull()
+      .references(() => amendments.id, { onDelete: 'cascade' }),
+    storedName: text('stored_name').notNull().unique(),
+    originalName: text('original_name').notNull(),
+    /** Detected from the content (file-type, or the text check), never the client's claim. */
+    mediaType: text('media_type').notNull(),
+    size: integer('size').notNull(),
+    sha256: text('sha256').notNull(),
+    uploadedBy: uuid('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+    uploadedByName: text('uploaded_by_name').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('amendment_files_amendment').on(t.amendmentId, t.createdAt)],
+);

@@ -11,3 +11,4 @@ export * from './notes';
 export * from './library';
 export * from './derived-values';
 export * from './amendments';
+export * from './notifications';
