@@ -9,6 +9,7 @@ import { healthRoutes } from './health.routes';
 import { invitationRoutes } from './invitations.routes';
 import { libraryRoutes } from './library.routes';
 import { noteRoutes } from './notes.routes';
+import { notificationRoutes } from './notifications.routes';
 import { buildOpenApiDocument } from './openapi';
 import { passwordResetRoutes } from './password-resets.routes';
 import { reactionEnthalpyRoutes } from './reaction-enthalpy.routes';
@@ -28,6 +29,7 @@ const resourceRoutes: AnyRoute[] = [
   ...balanceRoutes,
   ...libraryRoutes,
   ...amendmentRoutes,
+  ...notificationRoutes,
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,

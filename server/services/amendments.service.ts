@@ -698,6 +698,6 @@ export async function addComment(ctx: ActorContext, input: { amendmentId: string
     .values({ amendmentId: row.id, authorId: actor.id, authorName: actor.name, body: input.body })
     .returning();
   await ctx.db.update(amendments).set({ updatedAt: new Date() }).where(eq(amendments.id, row.id));
-  notice(row, ctx, { action: 'comment', from: row.state, to: row.state });
+  notice(row, ctx, { action: 'comment', from: row.state, to: row.state, comment: input.body });
   return presentComment(comment!);
 }

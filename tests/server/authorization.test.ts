@@ -74,6 +74,8 @@ const expectedAccess: Record<string, Access> = {
   'POST /api/v1/amendments/:amendmentId/rebase': 'proposer',
   'POST /api/v1/amendments/:amendmentId/revert': 'proposer',
   'POST /api/v1/amendments/:amendmentId/comments': 'proposer',
+  'GET /api/v1/account/notifications': 'signed_in',
+  'PATCH /api/v1/account/notifications': 'signed_in',
   'GET /api/v1/amendments/:amendmentId/files': 'signed_in',
   'POST /api/v1/amendments/:amendmentId/files': 'proposer',
   'GET /api/v1/amendments/:amendmentId/files/:fileId': 'signed_in',
