@@ -1,5 +1,5 @@
 import multer from 'multer';
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { RequestHandler } from 'express';
 import type { AppDeps } from '../context';
 import { AppError } from '../errors';
 
@@ -21,7 +21,13 @@ export function acceptUpload(spec: UploadSpec, deps: AppDeps): RequestHandler[] 
   const { maxFileBytes, maxFilesPerUpload } = deps.config.evidence;
   const parse = multer({
     storage: multer.memoryStorage(),
-    limits: { fileSize: maxFileBytes, files: maxFilesPerUpload, fields: 10, fieldSize: 10_000, parts: maxFilesPerUpload + 10 },
+    limits: {
+      fileSize: maxFileBytes,
+      files: maxFilesPerUpload,
+      fields: 10,
+      fieldSize: 10_000,
+      parts: maxFilesPerUpload + 10,
+    },
   }).array(spec.field, maxFilesPerUpload);
 
   const requireMultipart: RequestHandler = (req, _res, next) => {
@@ -33,34 +39,36 @@ export function acceptUpload(spec: UploadSpec, deps: AppDeps): RequestHandler[] 
     next();
   };
 
-  const mapErrors: ErrorRequestHandler = (error: unknown, _req, _res, next) => {
-    if (!(error instanceof multer.MulterError)) return next(error);
+  const mapError = (error: unknown): unknown => {
+    if (!(error instanceof multer.MulterError)) return error;
     switch (error.code) {
       case 'LIMIT_FILE_SIZE':
-        return next(
-          new AppError('payload_too_large', `A file is larger than ${megabytes(maxFileBytes)}, the most one evidence file may be.`, {
+        return new AppError(
+          'payload_too_large',
+          `A file is larger than ${megabytes(maxFileBytes)}, the most one evidence file may be.`,
+          {
             limit: 'fileSize',
             max: maxFileBytes,
-          }),
+          },
         );
       case 'LIMIT_FILE_COUNT':
       case 'LIMIT_PART_COUNT':
-        return next(
-          new AppError('payload_too_large', `Upload at most ${maxFilesPerUpload} files at once.`, {
-            limit: 'files',
-            max: maxFilesPerUpload,
-          }),
-        );
+        return new AppError('payload_too_large', `Upload at most ${maxFilesPerUpload} files at once.`, {
+          limit: 'files',
+          max: maxFilesPerUpload,
+        });
       case 'LIMIT_UNEXPECTED_FILE':
-        return next(
-          new AppError('validation_failed', `Send the files in the form field "${spec.field}".`, {
-            issues: [{ path: ['body', error.field ?? spec.field], message: `Use the field "${spec.field}".` }],
-          }),
-        );
+        return new AppError('validation_failed', `Send the files in the form field "${spec.field}".`, {
+          issues: [{ path: ['body', error.field ?? spec.field], message: `Use the field "${spec.field}".` }],
+        });
       default:
-        return next(new AppError('bad_request', `The upload could not be read: ${error.message}.`));
+        return new AppError('bad_request', `The upload could not be read: ${error.message}.`);
     }
   };
 
-  return [requireMultipart, parse, mapErrors];
+  // multer reports its limits as MulterError: they become our 413/400 before the error handler.
+  const parseMapped: RequestHandler = (req, res, next) =>
+    parse(req, res, (error?: unknown) => (error === undefined ? next() : next(mapError(error))));
+
+  return [requireMultipart, parseMapped];
 }

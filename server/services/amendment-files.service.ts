@@ -99,7 +99,7 @@ export async function addEvidence(
     throw new AppError('validation_failed', 'Attach at least one file in the form field "files".', {
       issues: [{ path: ['body', 'files'], message: 'Attach at least one file.' }],
     });
-  const checked = [];
+  const checked: { name: string; mediaType: string; buffer: Buffer; sha256: string; storedName: string }[] = [];
   for (const [index, file] of files.entries()) {
     const name = cleanName(file.originalname);
     const verdict = await detectEvidenceType(file.buffer, name);
