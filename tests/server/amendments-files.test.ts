@@ -47,7 +47,9 @@ describe('POST /api/v1/amendments/:id/files', () => {
       .attach('files', pdf, { filename: 'calorimetry report.pdf', contentType: 'text/html' })
       .attach('files', csv, { filename: 'runs.csv', contentType: 'application/octet-stream' });
     expect(res.status).toBe(201);
-    const [report, runs] = res.body.items as { id: string; name: string; mediaType: string; href: string }[];
+    const items = res.body.items as { id: string; name: string; mediaType: string; href: string }[];
+    const report = items.find((f) => f.name.endsWith('.pdf'));
+    const runs = items.find((f) => f.name.endsWith('.csv'));
     expect(report).toMatchObject({ name: 'calorimetry report.pdf', mediaType: 'application/pdf' });
     expect(runs).toMatchObject({ name: 'runs.csv', mediaType: 'text/csv' });
 
@@ -65,7 +67,7 @@ describe('POST /api/v1/amendments/:id/files', () => {
     const detail = await curator.get(`/api/v1/amendments/${amendmentId}`).query({ impact: 'false' });
     expect(detail.status).toBe(404); // still a draft: the curator cannot see it
     const own = await member.get(`/api/v1/amendments/${amendmentId}`).query({ impact: 'false' });
-    expect(own.body.files.map((f: { name: string }) => f.name)).toEqual(['calorimetry report.pdf', 'runs.csv']);
+    expect(own.body.files.map((f: { name: string }) => f.name).sort()).toEqual(['calorimetry report.pdf', 'runs.csv']);
   });
 
   it('refuses a renamed executable and binary data posing as CSV (415, naming the file); nothing is stored', async () => {

@@ -165,7 +165,8 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-const TABLES = 'audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
+const TABLES =
+  'digest_items, notification_settings, amendment_files, amendment_comments, amendment_events, amendment_entries, amendments, audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
 
 async function readIds(open: OpenDatabase): Promise<DemoIds> {
   const { teams, users } = await import('../../server/db/tables/index');
