@@ -61,7 +61,13 @@ export function newsFor(notice: AmendmentNotice): AmendmentNews | null {
 
 export function amendmentChanged(ctx: ServiceContext, notice: AmendmentNotice): void {
   ctx.log.info(
-    { amendment: notice.amendmentId, action: notice.action, from: notice.from, to: notice.to, revision: notice.revision },
+    {
+      amendment: notice.amendmentId,
+      action: notice.action,
+      from: notice.from,
+      to: notice.to,
+      revision: notice.revision,
+    },
     `amendment ${notice.action}: ${notice.title}`,
   );
   const news = newsFor(notice);

@@ -8,9 +8,7 @@ import { evidenceMediaTypes, type EvidenceMediaType } from '@shared/schemas/amen
  * UTF-8 without NUL bytes, CSV when named .csv, plain text otherwise. The name and the type the
  * client sent decide nothing.
  */
-export type EvidenceVerdict =
-  | { ok: true; mediaType: EvidenceMediaType }
-  | { ok: false; reason: string };
+export type EvidenceVerdict = { ok: true; mediaType: EvidenceMediaType } | { ok: false; reason: string };
 
 const strictUtf8 = new TextDecoder('utf-8', { fatal: true });
 
@@ -31,7 +29,8 @@ export async function detectEvidenceType(bytes: Uint8Array, name: string): Promi
     if (found.mime in evidenceMediaTypes) return { ok: true, mediaType: found.mime as EvidenceMediaType };
     return { ok: false, reason: `its content is ${found.ext.toUpperCase()} (${found.mime})` };
   }
-  if (!isText(bytes)) return { ok: false, reason: 'its content is neither a known document or image format nor UTF-8 text' };
+  if (!isText(bytes))
+    return { ok: false, reason: 'its content is neither a known document or image format nor UTF-8 text' };
   return { ok: true, mediaType: /\.csv$/i.test(name) ? 'text/csv' : 'text/plain' };
 }
 

@@ -96,7 +96,11 @@ export function amendmentNewsMail(args: AmendmentNewsArgs): MailMessage {
 }
 
 /** The daily digest: one line and link per piece of news since the last digest. */
-export function amendmentDigestMail(args: { to: string; items: { line: string; link: string }[]; settingsLink: string }): MailMessage {
+export function amendmentDigestMail(args: {
+  to: string;
+  items: { line: string; link: string }[];
+  settingsLink: string;
+}): MailMessage {
   return {
     to: args.to,
     subject: `Thermoledger: ${args.items.length} amendment update${args.items.length === 1 ? '' : 's'}`,

@@ -13,7 +13,13 @@ import {
   evidenceFileListSchema,
   evidenceFileParamsSchema,
 } from '@shared/schemas/amendments';
-import { addEvidence, downloadEvidence, listEvidence, removeEvidence, type UploadedFile } from '../services/amendment-files.service';
+import {
+  addEvidence,
+  downloadEvidence,
+  listEvidence,
+  removeEvidence,
+  type UploadedFile,
+} from '../services/amendment-files.service';
 import { requireActor } from '../context';
 import {
   acceptAmendment,
@@ -97,7 +103,8 @@ export const amendmentRoutes = [
     access: 'proposer',
     request: { params: amendmentParamsSchema, body: amendmentInputSchema },
     responses: { 200: amendmentDetailSchema },
-    handler: ({ ctx, params, body }) => updateAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+    handler: ({ ctx, params, body }) =>
+      updateAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
   }),
   defineRoute({
     method: 'post',
@@ -129,7 +136,8 @@ export const amendmentRoutes = [
     access: { site: 'curator' },
     request: { params: amendmentParamsSchema, body: amendmentReasonInputSchema },
     responses: { 200: amendmentDetailSchema },
-    handler: ({ ctx, params, body }) => returnAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+    handler: ({ ctx, params, body }) =>
+      returnAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
   }),
   defineRoute({
     method: 'post',
@@ -139,7 +147,8 @@ export const amendmentRoutes = [
     access: { site: 'curator' },
     request: { params: amendmentParamsSchema, body: amendmentReasonInputSchema },
     responses: { 200: amendmentDetailSchema },
-    handler: ({ ctx, params, body }) => declineAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+    handler: ({ ctx, params, body }) =>
+      declineAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
   }),
   defineRoute({
     method: 'post',

@@ -46,8 +46,11 @@ function cleanName(name: string): string {
   // multer hands over latin1-decoded header bytes; browsers send UTF-8.
   const utf8 = Buffer.from(name, 'latin1').toString('utf8');
   const base = (utf8.includes('\uFFFD') ? name : utf8).split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex
-  const cleaned = base.replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(0, 200);
+  const cleaned = base
+    // eslint-disable-next-line no-control-regex -- control characters are what is removed
+    .replace(/[\u0000-\u001f\u007f"]/g, '')
+    .trim()
+    .slice(0, 200);
   return cleaned.length > 0 ? cleaned : 'evidence';
 }
 
@@ -68,7 +71,10 @@ function requireAuthorWhileUndecided(ctx: ActorContext, row: AmendmentRow, verb:
 }
 
 /** The evidence files of an amendment, oldest first. */
-export async function listEvidence(ctx: ActorContext, { amendmentId }: { amendmentId: string }): Promise<EvidenceFileList> {
+export async function listEvidence(
+  ctx: ActorContext,
+  { amendmentId }: { amendmentId: string },
+): Promise<EvidenceFileList> {
   const row = await amendmentFor(ctx, amendmentId);
   return { items: (await evidenceRows(ctx, row.id)).map(present) };
 }
@@ -131,9 +137,13 @@ export async function addEvidence(
       // The row lock keeps two uploads from passing the count check together.
       const [locked] = await tx.select().from(amendments).where(eq(amendments.id, row.id)).for('update');
       if (!locked || finalStates.includes(locked.state))
-        throw new AppError('conflict', `The amendment is ${locked?.state ?? 'gone'}: its evidence files no longer change.`, {
-          state: locked?.state ?? null,
-        });
+        throw new AppError(
+          'conflict',
+          `The amendment is ${locked?.state ?? 'gone'}: its evidence files no longer change.`,
+          {
+            state: locked?.state ?? null,
+          },
+        );
       const [held] = await tx.select({ n: count() }).from(amendmentFiles).where(eq(amendmentFiles.amendmentId, row.id));
       const total = Number(held?.n ?? 0) + checked.length;
       if (total > maxFilesPerAmendment)
@@ -163,7 +173,11 @@ export async function addEvidence(
   return listEvidence(ctx, { amendmentId: row.id });
 }
 
-async function fileOf(ctx: ActorContext, amendmentId: string, fileId: string): Promise<{ row: AmendmentRow; file: FileRow }> {
+async function fileOf(
+  ctx: ActorContext,
+  amendmentId: string,
+  fileId: string,
+): Promise<{ row: AmendmentRow; file: FileRow }> {
   const row = await amendmentFor(ctx, amendmentId);
   const [file] = await ctx.db
     .select()
@@ -179,7 +193,12 @@ export async function downloadEvidence(
   { amendmentId, fileId }: { amendmentId: string; fileId: string },
 ): Promise<FileReply> {
   const { file } = await fileOf(ctx, amendmentId, fileId);
-  return new FileReply(path.join(ctx.config.evidence.dir, file.storedName), file.originalName, file.mediaType, file.size);
+  return new FileReply(
+    path.join(ctx.config.evidence.dir, file.storedName),
+    file.originalName,
+    file.mediaType,
+    file.size,
+  );
 }
 
 /** Removes an evidence file (its author, before the amendment is decided). */

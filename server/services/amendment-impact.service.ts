@@ -9,7 +9,7 @@ import {
 } from '@shared/chemistry/hess/index';
 import type { AmendmentEntry, AmendmentImpact } from '@shared/schemas/amendments';
 import type { ActorContext } from '../context';
-import { amendments, teamDerivedValues, teams } from '../db/tables/index';
+import { teamDerivedValues, teams, type amendments } from '../db/tables/index';
 import { AppError } from '../errors';
 import { applyLibraryChanges, SetConflictError } from '../library/apply-set';
 import { parseIdentity } from '../library/identities';

@@ -27,7 +27,13 @@ import {
 } from '../db/tables/index';
 import { AppError, errors } from '../errors';
 import { amendmentChanged, type AmendmentNotice } from '../amendments/events';
-import { planEntries, problemsFromApplier, type AmendmentPlan, type EntryProblem, type TeamValueRow } from '../amendments/plan';
+import {
+  planEntries,
+  problemsFromApplier,
+  type AmendmentPlan,
+  type EntryProblem,
+  type TeamValueRow,
+} from '../amendments/plan';
 import { conflictsWith, presentComment, presentEvent, presentSummary } from '../amendments/present';
 import { inverseEntries } from '../amendments/revert';
 import { finalStates, mayTake, nextState, refusal, type Reviewer, type transitions } from '../amendments/states';
@@ -75,7 +81,12 @@ function visible(ctx: ServiceContext, row: AmendmentRow): boolean {
 }
 
 /** The amendment if the caller may see it, else 404 (a draft of someone else does not exist for them). */
-async function loadVisible(ctx: ServiceContext, db: Executor, amendmentId: string, lock = false): Promise<AmendmentRow> {
+async function loadVisible(
+  ctx: ServiceContext,
+  db: Executor,
+  amendmentId: string,
+  lock = false,
+): Promise<AmendmentRow> {
   const query = db.select().from(amendments).where(eq(amendments.id, amendmentId));
   const [row] = lock ? await query.for('update') : await query;
   if (!row || !visible(ctx, row)) throw errors.notFound('The amendment');
@@ -113,9 +124,7 @@ async function teamValuesFor(
   entries: readonly AmendmentEntry[],
   caller: 'caller' | 'any',
 ): Promise<Map<string, TeamValueRow>> {
-  const ids = [
-    ...new Set(entries.flatMap((e) => (e.kind === 'team-value' ? [e.derivedValueId] : []))),
-  ];
+  const ids = [...new Set(entries.flatMap((e) => (e.kind === 'team-value' ? [e.derivedValueId] : [])))];
   if (ids.length === 0) return new Map();
   const rows = await ctx.db
     .select({ value: teamDerivedValues, teamName: teams.name })
@@ -158,7 +167,12 @@ function entryProblems(problems: readonly EntryProblem[], code: 'validation_fail
   );
 }
 
-async function insertEntries(tx: Executor, amendmentId: string, entries: readonly AmendmentEntry[], plan: AmendmentPlan) {
+async function insertEntries(
+  tx: Executor,
+  amendmentId: string,
+  entries: readonly AmendmentEntry[],
+  plan: AmendmentPlan,
+) {
   const rows = entries.map((entry, position) => ({
     amendmentId,
     position,
@@ -195,8 +209,18 @@ async function recordEvent(
   });
 }
 
-function notice(row: AmendmentRow, ctx: ActorContext, rest: Omit<AmendmentNotice, 'amendmentId' | 'title' | 'actor' | 'authorId'>) {
-  amendmentChanged(ctx, { amendmentId: row.id, title: row.title, actor: actorOf(ctx), authorId: row.authorId, ...rest });
+function notice(
+  row: AmendmentRow,
+  ctx: ActorContext,
+  rest: Omit<AmendmentNotice, 'amendmentId' | 'title' | 'actor' | 'authorId'>,
+) {
+  amendmentChanged(ctx, {
+    amendmentId: row.id,
+    title: row.title,
+    actor: actorOf(ctx),
+    authorId: row.authorId,
+    ...rest,
+  });
 }
 
 /** Plans entries against a revision for review; bad entries are a 400 naming entry and field. */
@@ -386,8 +410,7 @@ export async function createAmendment(
   input: AmendmentInput & { origin?: AmendmentOrigin; revertOf?: string; baseRevision?: number },
 ): Promise<AmendmentDetail> {
   const plan = await planForReview(ctx, input, input.baseRevision, input.revertOf ? 'any' : 'caller');
-  if (plan.problems.length > 0)
-    throw entryProblems(plan.problems, 'validation_failed', 'The amendment was not saved');
+  if (plan.problems.length > 0) throw entryProblems(plan.problems, 'validation_failed', 'The amendment was not saved');
   const actor = actorOf(ctx);
   const baseRevision = input.baseRevision ?? (await currentRevision(ctx.db))!;
   const row = await ctx.db.transaction(async (tx) => {
@@ -543,7 +566,11 @@ export async function acceptAmendment(ctx: ActorContext, { amendmentId }: { amen
     const teamValues = await teamValuesFor(ctx, entries, 'any');
     const plan = planEntries({ snapshot, entries, title: row.title, teamValues, mode: 'apply' });
     if (plan.problems.length > 0)
-      throw entryProblems(plan.problems, 'conflict', `The amendment no longer applies to the library at revision ${latest}`);
+      throw entryProblems(
+        plan.problems,
+        'conflict',
+        `The amendment no longer applies to the library at revision ${latest}`,
+      );
     try {
       const { number } = await withNewRevision(
         ctx.db,
@@ -585,7 +612,13 @@ export async function acceptAmendment(ctx: ActorContext, { amendmentId }: { amen
           const now = new Date();
           await tx
             .update(amendments)
-            .set({ state: 'accepted', resultRevision: number, version: locked.version + 1, updatedAt: now, closedAt: now })
+            .set({
+              state: 'accepted',
+              resultRevision: number,
+              version: locked.version + 1,
+              updatedAt: now,
+              closedAt: now,
+            })
             .where(eq(amendments.id, row.id));
           await recordEvent(tx, row, {
             action: 'accept',
@@ -641,7 +674,13 @@ export async function rebaseAmendment(ctx: ActorContext, { amendmentId }: { amen
       throw errors.conflict('The amendment changed while it was being rebased: try again.', { state: locked.state });
     await tx
       .update(amendments)
-      .set({ baseRevision: latest, diff: plan.diff, targets: plan.targets, version: locked.version + 1, updatedAt: new Date() })
+      .set({
+        baseRevision: latest,
+        diff: plan.diff,
+        targets: plan.targets,
+        version: locked.version + 1,
+        updatedAt: new Date(),
+      })
       .where(eq(amendments.id, row.id));
     await tx.delete(amendmentEntries).where(eq(amendmentEntries.amendmentId, row.id));
     await insertEntries(tx, row.id, entries, plan);
@@ -663,11 +702,11 @@ export async function revertAmendment(ctx: ActorContext, { amendmentId }: { amen
   const who = await reviewerOf(ctx, row);
   if (!mayTake('revert', who)) throw refusal('revert', who);
   if (row.state !== 'accepted' || row.resultRevision === null)
-    throw new AppError(
-      'conflict',
-      `The amendment is ${row.state}: only an accepted amendment can be reverted.`,
-      { state: row.state, action: 'revert', allowedFrom: ['accepted'] },
-    );
+    throw new AppError('conflict', `The amendment is ${row.state}: only an accepted amendment can be reverted.`, {
+      state: row.state,
+      action: 'revert',
+      allowedFrom: ['accepted'],
+    });
   const revision = row.resultRevision;
   const [before, after] = await Promise.all([ctx.library.at(revision - 1), ctx.library.at(revision)]);
   const [made] = await ctx.db

@@ -115,7 +115,13 @@ export async function deliverAmendmentNews(deps: AppDeps, item: AmendmentNews): 
  */
 export async function sendDailyDigests(deps: AppDeps): Promise<{ sent: number; failed: number }> {
   const pending = await deps.db
-    .select({ id: digestItems.id, userId: digestItems.userId, line: digestItems.line, link: digestItems.link, email: users.email })
+    .select({
+      id: digestItems.id,
+      userId: digestItems.userId,
+      line: digestItems.line,
+      link: digestItems.link,
+      email: users.email,
+    })
     .from(digestItems)
     .innerJoin(users, eq(users.id, digestItems.userId))
     .where(isNull(digestItems.sentAt))
@@ -136,7 +142,12 @@ export async function sendDailyDigests(deps: AppDeps): Promise<{ sent: number; f
       await deps.db
         .update(digestItems)
         .set({ sentAt: new Date() })
-        .where(inArray(digestItems.id, items.map((i) => i.id)));
+        .where(
+          inArray(
+            digestItems.id,
+            items.map((i) => i.id),
+          ),
+        );
       sent++;
     } catch (err) {
       failed++;
@@ -157,11 +168,14 @@ export function msUntilHourUtc(now: Date, hour: number): number {
 export function scheduleDailyDigests(deps: AppDeps): () => void {
   let timer: NodeJS.Timeout | undefined;
   const plan = () => {
-    timer = setTimeout(() => {
-      sendDailyDigests(deps)
-        .catch((err: unknown) => deps.log.error({ err }, 'daily digest failed'))
-        .finally(plan);
-    }, msUntilHourUtc(new Date(), deps.config.digestHourUtc));
+    timer = setTimeout(
+      () => {
+        sendDailyDigests(deps)
+          .catch((err: unknown) => deps.log.error({ err }, 'daily digest failed'))
+          .finally(plan);
+      },
+      msUntilHourUtc(new Date(), deps.config.digestHourUtc),
+    );
     timer.unref();
   };
   plan();

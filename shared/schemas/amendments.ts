@@ -1,6 +1,5 @@
 import { z } from 'zod';
 import {
-  libraryPropertySchema,
   provenanceSchema,
   reactionMethodSchema,
   sourceKindSchema,
@@ -76,7 +75,10 @@ export const valueWithUncertaintySchema = z.object({
 export const statedUncertaintyInputSchema = z.object({
   kind: uncertaintyKindSchema,
   value: finite.refine((u) => u >= 0, 'must not be negative').nullable(),
-  k: finite.refine((k) => k > 0, 'must be above 0').nullable().optional(),
+  k: finite
+    .refine((k) => k > 0, 'must be above 0')
+    .nullable()
+    .optional(),
 });
 
 /** A source given by its words: becomes a new library source (key from the citation unless given). */

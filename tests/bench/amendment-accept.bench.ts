@@ -38,8 +38,11 @@ for (let k = 0; k < ITERATIONS; k++) {
     provenance: 'entered',
     select: false,
   }));
-  const created = await member.post('/api/v1/amendments').send({ title: `Benchmark ${k}`, rationale: 'Benchmark.', entries });
-  if (created.status !== 201) throw new Error(`create: ${created.status} ${JSON.stringify(created.body).slice(0, 500)}`);
+  const created = await member
+    .post('/api/v1/amendments')
+    .send({ title: `Benchmark ${k}`, rationale: 'Benchmark.', entries });
+  if (created.status !== 201)
+    throw new Error(`create: ${created.status} ${JSON.stringify(created.body).slice(0, 500)}`);
   await member.post(`/api/v1/amendments/${created.body.id}/open`).send({});
   prepared.push(created.body.id as string);
 }

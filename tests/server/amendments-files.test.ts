@@ -27,12 +27,21 @@ const exe = Buffer.concat([Buffer.from('MZ'), Buffer.alloc(200, 0x90)]);
 const csv = Buffer.from('species,value,uncertainty\nCO2(g),-393.47,0.05\n');
 
 beforeAll(async () => {
-  t = await startTestApp({ config: { evidence: { maxFileBytes: MAX_BYTES, maxFilesPerUpload: 2, maxFilesPerAmendment: 3 } } });
+  t = await startTestApp({
+    config: { evidence: { maxFileBytes: MAX_BYTES, maxFilesPerUpload: 2, maxFilesPerAmendment: 3 } },
+  });
   [member, curator] = await Promise.all([t.signIn('member'), t.signIn('curator')]);
   const created = await member.post('/api/v1/amendments').send({
     title: 'With evidence',
     rationale: 'The attached report.',
-    entries: [{ kind: 'revise-value', species: 'CO2(g)', deltaFH: { value: -393.45, uncertainty: 0.1 }, source: { key: 'codata-1989' } }],
+    entries: [
+      {
+        kind: 'revise-value',
+        species: 'CO2(g)',
+        deltaFH: { value: -393.45, uncertainty: 0.1 },
+        source: { key: 'codata-1989' },
+      },
+    ],
   });
   amendmentId = created.body.id;
 });
@@ -53,11 +62,14 @@ describe('POST /api/v1/amendments/:id/files', () => {
     expect(report).toMatchObject({ name: 'calorimetry report.pdf', mediaType: 'application/pdf' });
     expect(runs).toMatchObject({ name: 'runs.csv', mediaType: 'text/csv' });
 
-    const download = await curator.get(report!.href).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const download = await curator
+      .get(report!.href)
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     expect(download.status).toBe(200);
     expect(download.headers['content-disposition']).toMatch(/^attachment; filename="calorimetry report.pdf"/);
     expect(download.headers['x-content-type-options']).toBe('nosniff');
@@ -78,7 +90,9 @@ describe('POST /api/v1/amendments/:id/files', () => {
       [Buffer.from([0x41, 0x00, 0x42, 0x0a]), 'data.csv'],
       [Buffer.from([0xc3, 0x28, 0x0a]), 'latin.csv'],
     ] as const) {
-      const res = await member.post(filesUrl()).attach('files', bytes, { filename: name, contentType: 'application/pdf' });
+      const res = await member
+        .post(filesUrl())
+        .attach('files', bytes, { filename: name, contentType: 'application/pdf' });
       expect(res.status).toBe(415);
       expect(res.body.error.code).toBe('unsupported_media_type');
       expect(res.body.error.message).toContain(name);
@@ -125,7 +139,13 @@ describe('POST /api/v1/amendments/:id/files', () => {
       expect(name).toMatch(/^[0-9a-f]{32}$/);
       const list = await member.get(filesUrl());
       expect(JSON.stringify(list.body)).not.toContain(name);
-      for (const guess of [`/${name}`, `/evidence/${name}`, `/data/evidence/${name}`, `/api/v1/files/${name}`, `/api/v1/amendments/${amendmentId}/files/${name}`]) {
+      for (const guess of [
+        `/${name}`,
+        `/evidence/${name}`,
+        `/data/evidence/${name}`,
+        `/api/v1/files/${name}`,
+        `/api/v1/amendments/${amendmentId}/files/${name}`,
+      ]) {
         const res = await member.get(guess);
         expect(res.status, guess).toBeGreaterThanOrEqual(400);
       }

@@ -88,7 +88,9 @@ describe('amendment e-mail', () => {
       'amendment-comment': 'never',
       'amendment-decision': 'daily',
     });
-    const bad = await member.patch('/api/v1/account/notifications').send({ settings: { 'amendment-decision': 'hourly' } });
+    const bad = await member
+      .patch('/api/v1/account/notifications')
+      .send({ settings: { 'amendment-decision': 'hourly' } });
     expect(bad.status).toBe(400);
 
     const id = await proposeOpen(t, [entry()], { author: member, title: 'Mail: digest' });

@@ -159,7 +159,10 @@ describe('amendment state machine (model-based)', () => {
     await fc.assert(
       fc.asyncProperty(fc.commands(commands, { maxCommands: 14 }), async (cmds) => {
         const revision = await libraryRevision();
-        await fc.asyncModelRun(() => ({ model: { amendments: [], revision }, real: { agents, revision: libraryRevision } }), cmds);
+        await fc.asyncModelRun(
+          () => ({ model: { amendments: [], revision }, real: { agents, revision: libraryRevision } }),
+          cmds,
+        );
       }),
       { numRuns: 8, endOnFailure: true },
     );

@@ -31,7 +31,10 @@ function freshValue(species = 'CO2(g)', value = -393.4) {
     kind: 'revise-value',
     species,
     deltaFH: { value, uncertainty: 0.2 },
-    source: { citation: `A. Tester, J. Test Thermochem. ${counter} (2026) 1.`, key: `test-${Date.now().toString(36)}-${counter}` },
+    source: {
+      citation: `A. Tester, J. Test Thermochem. ${counter} (2026) 1.`,
+      key: `test-${Date.now().toString(36)}-${counter}`,
+    },
     provenance: 'entered',
     select: false,
   };
@@ -43,7 +46,10 @@ async function currentRevision(): Promise<number> {
 }
 
 async function selectedDfH(key: string, revision?: number): Promise<number> {
-  const list = await t.anon().get('/api/v1/species').query({ q: key, limit: 50, ...(revision ? { revision } : {}) });
+  const list = await t
+    .anon()
+    .get('/api/v1/species')
+    .query({ q: key, limit: 50, ...(revision ? { revision } : {}) });
   return (list.body.items as { key: string; deltaFH: { value: number } }[]).find((i) => i.key === key)!.deltaFH.value;
 }
 
@@ -123,7 +129,13 @@ describe('the review flow', () => {
 
     const detail = await curator.get(`/api/v1/amendments/${id}`);
     expect(detail.body.comments).toHaveLength(1);
-    expect(detail.body.history.map((h: { action: string }) => h.action)).toEqual(['create', 'open', 'return', 'edit', 'open']);
+    expect(detail.body.history.map((h: { action: string }) => h.action)).toEqual([
+      'create',
+      'open',
+      'return',
+      'edit',
+      'open',
+    ]);
     expect(detail.body.impact).not.toBeNull();
     expect(detail.body.allowed).toMatchObject({ accept: true, return: true, decline: true, edit: false });
 
@@ -237,9 +249,13 @@ describe('atomicity', () => {
     );
     expect(values.length).toBeGreaterThan(0);
     const target = values[0]!.id;
-    const id = await proposeOpen(t, [freshValue('CH4(g)', -74.8), { kind: 'mark-checked', target: 'value', id: target }], {
-      author: member,
-    });
+    const id = await proposeOpen(
+      t,
+      [freshValue('CH4(g)', -74.8), { kind: 'mark-checked', target: 'value', id: target }],
+      {
+        author: member,
+      },
+    );
     await acceptEntries(t, [{ kind: 'deprecate', target: 'value', id: target, reason: 'Superseded (test).' }]);
     const before = await currentRevision();
     const ch4Before = await selectedDfH('CH4(g)');
@@ -258,18 +274,16 @@ describe('atomicity', () => {
         begin if new.value = -4321.5 then raise exception 'refused by the test trigger'; end if; return new; end $$`),
     );
     await t.db.execute(
-      sql.raw('create trigger tl_test_refuse before insert or update on library_values for each row execute function tl_test_refuse()'),
+      sql.raw(
+        'create trigger tl_test_refuse before insert or update on library_values for each row execute function tl_test_refuse()',
+      ),
     );
     try {
       const before = await currentRevision();
       const co2 = await selectedDfH('CO2(g)');
       const id = await proposeOpen(
         t,
-        [
-          { ...freshValue('CO2(g)', -393.3), select: true },
-          freshValue('CH4(g)', -74.7),
-          freshValue('H2O(g)', -4321.5),
-        ],
+        [{ ...freshValue('CO2(g)', -393.3), select: true }, freshValue('CH4(g)', -74.7), freshValue('H2O(g)', -4321.5)],
         { author: member },
       );
       const res = await curator.post(`/api/v1/amendments/${id}/accept`).send({});
@@ -288,7 +302,12 @@ describe('reverting', () => {
   it('proposes a pre-filled draft that restores the earlier values, applied only when accepted', async () => {
     const original = await selectedDfH('NH3(g)');
     const { id, revision } = await acceptEntries(t, [
-      { kind: 'revise-value', species: 'NH3(g)', deltaFH: { value: -45.5, uncertainty: 0.4 }, source: { key: 'codata-1989' } },
+      {
+        kind: 'revise-value',
+        species: 'NH3(g)',
+        deltaFH: { value: -45.5, uncertainty: 0.4 },
+        source: { key: 'codata-1989' },
+      },
     ]);
     expect(await selectedDfH('NH3(g)')).toBe(-45.5);
     const revert = await member.post(`/api/v1/amendments/${id}/revert`).send({});

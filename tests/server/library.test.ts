@@ -362,8 +362,18 @@ describe('revisions', () => {
       title: 'Test: a bad entry',
       rationale: 'A test.',
       entries: [
-        { kind: 'revise-value', species: 'CO2(g)', deltaFH: { value: -393.0, uncertainty: 0.1 }, source: { key: 'codata-1989' } },
-        { kind: 'revise-value', species: 'CO2(g)', deltaFH: { value: 'abc', uncertainty: 0.1 }, source: { key: 'codata-1989' } },
+        {
+          kind: 'revise-value',
+          species: 'CO2(g)',
+          deltaFH: { value: -393.0, uncertainty: 0.1 },
+          source: { key: 'codata-1989' },
+        },
+        {
+          kind: 'revise-value',
+          species: 'CO2(g)',
+          deltaFH: { value: 'abc', uncertainty: 0.1 },
+          source: { key: 'codata-1989' },
+        },
       ],
     });
     expect(res.status).toBe(400);
@@ -374,12 +384,18 @@ describe('revisions', () => {
 
   it('has no direct import: even a site admin changes the library only through an amendment', async () => {
     const admin = await t.signIn('site_admin');
-    const res = await admin.post('/api/v1/library/imports').send({ summary: 'nope', files: [{ name: 'x.csv', text: '' }] });
+    const res = await admin
+      .post('/api/v1/library/imports')
+      .send({ summary: 'nope', files: [{ name: 'x.csv', text: '' }] });
     expect(res.status).toBe(404);
     // A site admin in no team is not a proposer either.
     const proposed = await admin
       .post('/api/v1/amendments')
-      .send({ title: 'nope', rationale: 'nope', entries: [{ kind: 'deprecate', target: 'species', id: crypto.randomUUID(), reason: 'x' }] });
+      .send({
+        title: 'nope',
+        rationale: 'nope',
+        entries: [{ kind: 'deprecate', target: 'species', id: crypto.randomUUID(), reason: 'x' }],
+      });
     expect(proposed.status).toBe(403);
   });
 });
