@@ -1,7 +1,10 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import type TestAgent from 'supertest/lib/agent';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { startTestApp, type TestApp } from './helpers';
+
+// Every test drives several requests (acceptances plan and write whole revisions): room for a loaded machine.
+vi.setConfig({ testTimeout: 120_000 });
 
 /** Evidence files: POST/GET/DELETE /api/v1/amendments/:id/files. Limits made small for the test. */
 let t: TestApp;
@@ -44,7 +47,7 @@ beforeAll(async () => {
     ],
   });
   amendmentId = created.body.id;
-});
+}, 180_000);
 afterAll(async () => t?.close());
 
 const filesUrl = () => `/api/v1/amendments/${amendmentId}/files`;

@@ -1,9 +1,12 @@
 import { sql } from 'drizzle-orm';
 import type TestAgent from 'supertest/lib/agent';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sendDailyDigests } from '../../server/services/notifications.service';
 import { demoUsers, lastMailTo, linkIn, startTestApp, type TestApp } from './helpers';
 import { proposeOpen } from './amendment-helpers';
+
+// Every test drives several requests (acceptances plan and write whole revisions): room for a loaded machine.
+vi.setConfig({ testTimeout: 120_000 });
 
 /** E-mail about amendments, delivered through the fake SMTP server and read back from it. */
 let t: TestApp;
@@ -14,7 +17,7 @@ beforeAll(async () => {
   t = await startTestApp();
   await t.db.execute(sql`update users set site_roles = '{site_admin,curator}' where id = ${t.ids.users.site_admin}`);
   [member, curator] = await Promise.all([t.signIn('member'), t.signIn('curator')]);
-});
+}, 180_000);
 afterAll(async () => t?.close());
 
 let n = 0;

@@ -1,8 +1,11 @@
 import { sql } from 'drizzle-orm';
 import type TestAgent from 'supertest/lib/agent';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { startTestApp, type TestApp } from './helpers';
 import { acceptEntries, proposeOpen } from './amendment-helpers';
+
+// Every test drives several requests (acceptances plan and write whole revisions): room for a loaded machine.
+vi.setConfig({ testTimeout: 120_000 });
 
 let t: TestApp;
 let member: TestAgent;
@@ -20,7 +23,7 @@ beforeAll(async () => {
     t.signIn('site_admin'),
     t.signIn('viewer'),
   ]);
-});
+}, 180_000);
 afterAll(async () => t?.close());
 
 let counter = 0;
@@ -235,7 +238,7 @@ describe('concurrency', () => {
         expect(await currentRevision()).toBe(before + 2);
       }
     }
-  });
+  }, 240_000);
 });
 
 describe('atomicity', () => {
@@ -295,6 +298,35 @@ describe('atomicity', () => {
     } finally {
       await t.db.execute(sql.raw('drop trigger tl_test_refuse on library_values'));
     }
+  });
+});
+
+describe('impact', () => {
+  it('shows old → new ΔrH° of the demo scenario reactions that use a revised species', async () => {
+    // Raising the selected ΔfH°(H2O, l) by 1 kJ/mol raises ΔrH° of the nitrobenzene hydrogenation
+    // (2 H2O(l) among the products) by 2 kJ/mol: Hess's law, ΔrH° = Σν ΔfH°(products) − Σν ΔfH°(reactants).
+    const water = await selectedDfH('H2O(l)');
+    const id = await proposeOpen(
+      t,
+      [
+        {
+          kind: 'revise-value',
+          species: 'H2O(l)',
+          deltaFH: { value: water + 1, uncertainty: 0.1 },
+          source: { citation: 'Impact test source (invented).', key: 'impact-test' },
+        },
+      ],
+      { author: member },
+    );
+    const detail = await curator.get(`/api/v1/amendments/${id}`);
+    expect(detail.status).toBe(200);
+    const nitro = (
+      detail.body.impact.reactions as { id: string; old: { value: number }; new: { value: number }; change: number }[]
+    ).find((r) => r.id === 'kestrel-nitro-hydrogenation');
+    expect(nitro).toBeDefined();
+    expect(nitro!.change).toBeCloseTo(2, 6);
+    expect(nitro!.new.value - nitro!.old.value).toBeCloseTo(2, 6);
+    await member.post(`/api/v1/amendments/${id}/withdraw`).send({});
   });
 });
 
