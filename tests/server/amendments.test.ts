@@ -330,6 +330,42 @@ describe('impact', () => {
   });
 });
 
+describe('team-value entries', () => {
+  it("proposes a team's derived value with a new species, and the accepted value keeps its derivation", async () => {
+    // Invented combustion result for benzyl acetate (a test figure, not a measurement).
+    const saved = await member.post(`/api/v1/teams/${t.ids.teams.kestrel}/derived-values`).send({
+      derivation: {
+        target: '9 C(s) + 5 H2(g) + O2(g) -> C9H10O2(l)',
+        reactions: [
+          { equation: 'C9H10O2(l) + 21/2 O2(g) -> 9 CO2(g) + 5 H2O(l)', deltaH: { value: -4657.0, uncertainty: 1.5 } },
+        ],
+      },
+      note: 'from our combustion run',
+    });
+    expect(saved.status).toBe(201);
+    const entries = [
+      { kind: 'set-species', key: 'C9H10O2(l)', name: 'benzyl acetate' },
+      { kind: 'team-value', teamId: t.ids.teams.kestrel, derivedValueId: saved.body.id },
+    ];
+    // Only members of the team may propose its values.
+    const stranger = await t.signIn('other_team');
+    const refused = await stranger.post('/api/v1/amendments').send({ title: 'Not my team', rationale: 'x', entries });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.details.issues[0].path).toEqual(['body', 'entries', 1, 'derivedValueId']);
+
+    const { revision } = await acceptEntries(t, entries, 'Benzyl acetate from our combustion run');
+    const found = await t.anon().get('/api/v1/species').query({ q: 'benzyl acetate', limit: 10 });
+    const species = (found.body.items as { id: string; key: string; deltaFH: { value: number } | null }[]).find(
+      (s) => s.key === 'C9H10O2(l)',
+    )!;
+    expect(species.deltaFH!.value).toBeCloseTo(saved.body.deltaFH.value, 9);
+    const detail = await t.anon().get(`/api/v1/species/${species.id}`);
+    const value = (detail.body.values as { provenance: string; selected: boolean }[]).find((v) => v.selected)!;
+    expect(value.provenance).toBe('derived');
+    expect((await t.anon().get('/api/v1/library/revisions')).body.current).toBe(revision);
+  });
+});
+
 describe('reverting', () => {
   it('proposes a pre-filled draft that restores the earlier values, applied only when accepted', async () => {
     const original = await selectedDfH('NH3(g)');
