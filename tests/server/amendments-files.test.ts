@@ -65,7 +65,8 @@ describe('POST /api/v1/amendments/:id/files', () => {
     expect(report).toMatchObject({ name: 'calorimetry report.pdf', mediaType: 'application/pdf' });
     expect(runs).toMatchObject({ name: 'runs.csv', mediaType: 'text/csv' });
 
-    const download = await curator
+    // Still a draft: only its author sees it, and its files.
+    const download = await member
       .get(report!.href)
       .buffer(true)
       .parse((r, done) => {
