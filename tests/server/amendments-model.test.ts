@@ -177,9 +177,10 @@ const commands = [
   role.map((by) => new CreateCommand(by)),
   fc
     .tuple(
-      fc.nat(),
+      // Small picks: a run comes back to the same few amendments.
+      fc.nat({ max: 5 }),
       fc.oneof(
-        { weight: 2, arbitrary: fc.constant<'next'>('next') },
+        { weight: 3, arbitrary: fc.constant<'next'>('next') },
         { weight: 3, arbitrary: fc.constantFrom<Action>('open', 'withdraw', 'accept', 'return', 'decline', 'comment') },
       ),
       fc.oneof(fc.constantFrom<Actor>('author', 'reviewer'), role),
@@ -190,15 +191,17 @@ const commands = [
 describe('amendment state machine (model-based)', () => {
   it('matches the model for random sequences of actions by random roles', async () => {
     await fc.assert(
-      fc.asyncProperty(fc.commands(commands, { maxCommands: 20 }), async (cmds) => {
+      fc.asyncProperty(fc.commands(commands, { maxCommands: 24, size: 'large' }), async (cmds) => {
         const revision = await libraryRevision();
         await fc.asyncModelRun(
           () => ({ model: { amendments: [], revision }, real: { agents, revision: libraryRevision } }),
           cmds,
         );
       }),
-      { numRuns: 12, endOnFailure: true },
+      // A fixed seed keeps the run's depth checks below stable; MODEL_SEED explores other sequences.
+      { numRuns: 25, endOnFailure: true, seed: Number(process.env['MODEL_SEED'] ?? 20_261_202) },
     );
+    console.info('model runs reached', reached);
     // The runs reached the far states and were refused often: the property was not vacuous.
     expect(reached.accepted).toBeGreaterThan(0);
     expect(reached.refused).toBeGreaterThan(0);
