@@ -573,7 +573,10 @@ class Planner {
       k: null,
     };
     if ((s.kind === 'none') !== (s.value === null)) {
-      this.problem(['stated', 'value'], `uncertainty kind ${s.kind} ${s.kind === 'none' ? 'takes no' : 'needs a'} value.`);
+      this.problem(
+        ['stated', 'value'],
+        `uncertainty kind ${s.kind} ${s.kind === 'none' ? 'takes no' : 'needs a'} value.`,
+      );
       return null;
     }
     if ((s.kind === 'expanded') !== (s.k !== null && s.k !== undefined)) {
@@ -731,8 +734,9 @@ class Planner {
     const species = this.species(row.speciesKey, ['derivedValueId']);
     const source = e.source ? this.source(e.source, ['source']) : this.derivedSource();
     if (!species || !source) return;
-    const stored = (row.derivation as { inputs?: { input: string; weight: string; label: string; uncertainty: number | null }[] })
-      .inputs;
+    const stored = (
+      row.derivation as { inputs?: { input: string; weight: string; label: string; uncertainty: number | null }[] }
+    ).inputs;
     const weights = (stored ?? []).map((i) => ({
       // The derivation's own given reactions are not library inputs: named after the team value.
       input: i.input.startsWith('given:') ? `team-value:${row.id}:${i.input}` : i.input,
@@ -1119,7 +1123,10 @@ class Planner {
       target: this.target('source', identity, null, null),
       action: existing ? (unchanged ? 'unchanged' : 'revise') : 'add',
       old: existing ? side({ text: citationOf(existing), source: this.sourceSide(existing.key) }) : null,
-      new: side({ text: citationOf(record), source: { id: existing?.id ?? null, key: record.key, citation: citationOf(record) } }),
+      new: side({
+        text: citationOf(record),
+        source: { id: existing?.id ?? null, key: record.key, citation: citationOf(record) },
+      }),
       selection: null,
     });
   }
@@ -1162,7 +1169,8 @@ class Planner {
   }
 
   private markChecked(e: Extract<AmendmentEntry, { kind: 'mark-checked' }>): void {
-    const notFound = () => this.problem(['id'], `there is no current ${e.target} with id ${e.id} in the library ${this.at}.`);
+    const notFound = () =>
+      this.problem(['id'], `there is no current ${e.target} with id ${e.id} in the library ${this.at}.`);
     if (e.target === 'value') {
       const v = this.values().get(e.id);
       const species = v && this.speciesOfRow(v.speciesId);
@@ -1251,7 +1259,8 @@ class Planner {
   }
 
   private deprecate(e: Extract<AmendmentEntry, { kind: 'deprecate' }>): void {
-    const notFound = () => this.problem(['id'], `there is no current ${e.target} with id ${e.id} in the library ${this.at}.`);
+    const notFound = () =>
+      this.problem(['id'], `there is no current ${e.target} with id ${e.id} in the library ${this.at}.`);
     const deprecation = (fields: Omit<NonNullable<LibrarySet['deprecations']>[number], 'origin'>) =>
       this.set.deprecations!.push({ origin: this.origin, ...fields });
     switch (e.target) {
@@ -1385,7 +1394,10 @@ class Planner {
           kind: 'deprecate',
           target: this.target('source', identity, null, null),
           action: 'deprecate',
-          old: side({ text: citationOf(source), source: { id: source.id, key: source.key, citation: citationOf(source) } }),
+          old: side({
+            text: citationOf(source),
+            source: { id: source.id, key: source.key, citation: citationOf(source) },
+          }),
           new: null,
           selection: null,
         });

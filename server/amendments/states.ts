@@ -84,9 +84,13 @@ export function refusal(action: keyof typeof transitions | 'comment' | 'revert',
     case 'return':
     case 'decline':
       return who.isAuthor
-        ? new AppError('forbidden', 'Nobody reviews their own amendment: another curator must accept, return or decline it.', {
-            rule: 'four-eyes',
-          })
+        ? new AppError(
+            'forbidden',
+            'Nobody reviews their own amendment: another curator must accept, return or decline it.',
+            {
+              rule: 'four-eyes',
+            },
+          )
         : new AppError('forbidden', 'Only a curator may review amendments.');
     case 'rebase':
     case 'comment':

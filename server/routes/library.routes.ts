@@ -60,5 +60,4 @@ export const libraryRoutes = [
     responses: { 200: revisionListSchema },
     handler: ({ ctx }) => listRevisions(ctx, {}),
   }),
-
 ];

@@ -1,10 +1,5 @@
 import { z } from 'zod';
-import {
-  provenanceSchema,
-  reactionMethodSchema,
-  sourceKindSchema,
-  uncertaintyKindSchema,
-} from './library-core';
+import { provenanceSchema, reactionMethodSchema, sourceKindSchema, uncertaintyKindSchema } from './library-core';
 import { thermoFormSchema, thermoScaleSchema } from './thermo';
 import { plainText } from './text';
 

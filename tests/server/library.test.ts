@@ -389,13 +389,11 @@ describe('revisions', () => {
       .send({ summary: 'nope', files: [{ name: 'x.csv', text: '' }] });
     expect(res.status).toBe(404);
     // A site admin in no team is not a proposer either.
-    const proposed = await admin
-      .post('/api/v1/amendments')
-      .send({
-        title: 'nope',
-        rationale: 'nope',
-        entries: [{ kind: 'deprecate', target: 'species', id: crypto.randomUUID(), reason: 'x' }],
-      });
+    const proposed = await admin.post('/api/v1/amendments').send({
+      title: 'nope',
+      rationale: 'nope',
+      entries: [{ kind: 'deprecate', target: 'species', id: crypto.randomUUID(), reason: 'x' }],
+    });
     expect(proposed.status).toBe(403);
   });
 });
