@@ -20,20 +20,24 @@ afterAll(async () => t.close());
 const member = await t.signIn('member');
 const curator = await t.signIn('curator');
 
-const species: string[] = [];
+// Species with a non-zero selected ΔfH° (a reference state's is 0 by definition and cannot be revised).
+const species: { id: string; value: number }[] = [];
 for (let offset = 0; species.length < ENTRIES; offset += 200) {
   const page = await t.anon().get('/api/v1/species').query({ limit: 200, offset });
   const items = page.body.items as { id: string; deltaFH: { value: number } | null }[];
   if (items.length === 0) throw new Error(`the library has fewer than ${ENTRIES} species with a ΔfH°`);
-  for (const item of items) if (item.deltaFH && species.length < ENTRIES) species.push(item.id);
+  for (const item of items)
+    if (item.deltaFH && item.deltaFH.value !== 0 && species.length < ENTRIES)
+      species.push({ id: item.id, value: item.deltaFH.value });
 }
 
 const prepared: string[] = [];
 for (let k = 0; k < ITERATIONS; k++) {
-  const entries = species.map((id, i) => ({
+  const entries = species.map(({ id, value }) => ({
     kind: 'revise-value',
     species: id,
-    deltaFH: { value: -100 - i / 10 - k / 1000, uncertainty: 0.5 },
+    // Near the selected value: a revision as a new data set would propose it.
+    deltaFH: { value: Math.round((value + 0.1 + k / 100) * 1000) / 1000, uncertainty: 0.5 },
     source: { citation: `Benchmark data set ${k}, invented for the accept benchmark`, key: `bench-accept-${k}` },
     provenance: 'entered',
     select: false,
