@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
+import { amendmentRoutes } from './amendments.routes';
 import { balanceRoutes } from './balance.routes';
 import { deriveRoutes } from './derive.routes';
 import { derivedValueRoutes } from './derived-values.routes';
@@ -8,6 +9,7 @@ import { healthRoutes } from './health.routes';
 import { invitationRoutes } from './invitations.routes';
 import { libraryRoutes } from './library.routes';
 import { noteRoutes } from './notes.routes';
+import { notificationRoutes } from './notifications.routes';
 import { buildOpenApiDocument } from './openapi';
 import { passwordResetRoutes } from './password-resets.routes';
 import { reactionEnthalpyRoutes } from './reaction-enthalpy.routes';
@@ -26,6 +28,8 @@ const resourceRoutes: AnyRoute[] = [
   ...adminRoutes,
   ...balanceRoutes,
   ...libraryRoutes,
+  ...amendmentRoutes,
+  ...notificationRoutes,
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,

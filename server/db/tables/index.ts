@@ -10,3 +10,5 @@ export * from './audit-log';
 export * from './notes';
 export * from './library';
 export * from './derived-values';
+export * from './amendments';
+export * from './notifications';
