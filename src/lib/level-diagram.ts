@@ -19,7 +19,7 @@ export interface DiagramLevel {
   x1: number;
   x2: number;
   y: number;
-  /** Where its figure is written (centred above the bar, clear of the arrows that meet it). */
+  /** Where its figure starts (above the bar, just right of the arrow that reaches it). */
   labelX: number;
 }
 
@@ -102,7 +102,7 @@ export function levelDiagram(steps: readonly DiagramStep[], layout: DiagramLayou
       // The final level runs on under the overall arrow's column.
       x2: index === steps.length ? columnStart(index + 1) + columnWidth - inset : ownEnd,
       y: y(enthalpy),
-      labelX: (x1 + ownEnd) / 2 + (index === 0 ? 0 : arrowOffset / 2),
+      labelX: index === 0 ? x1 : x1 + 6,
     };
   });
   const arrows: DiagramArrow[] = steps.map((step, i) => ({

@@ -48,6 +48,8 @@ describe('levelDiagram', () => {
       expect(level.x1).toBeGreaterThanOrEqual(20);
       expect(level.x2).toBeLessThanOrEqual(780);
     }
+    // Figures start on their bar, right of the arrow that reaches it.
+    expect(d.levels.map((l) => l.labelX)).toEqual(d.levels.map((l, i) => (i === 0 ? l.x1 : d.arrows[i - 1]!.x + 6)));
     // A step's arrow stands on its own level's bar, past where the level before ends.
     for (const arrow of d.arrows) {
       const reached = d.levels[arrow.step]!;
