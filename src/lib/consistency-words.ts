@@ -50,3 +50,29 @@ export function flaggedSentence(result: ConsistencyResult): string {
   if (n === 0) return 'No measurement lies beyond 2σ of the fit.';
   return `${n} measurement${n === 1 ? ' lies' : 's lie'} beyond 2σ of the fit (marked below).`;
 }
+
+export interface ExcludedGroup {
+  reason: string;
+  reactions: string[];
+}
+
+/** Measurements left out, grouped by their reason (in the order the reasons first appear). */
+export function groupExcluded(excluded: ConsistencyResult['excluded']): ExcludedGroup[] {
+  const groups = new Map<string, string[]>();
+  for (const e of excluded) {
+    const list = groups.get(e.reason);
+    if (list) list.push(e.reaction);
+    else groups.set(e.reason, [e.reaction]);
+  }
+  return [...groups].map(([reason, reactions]) => ({ reason, reactions }));
+}
+
+/**
+ * A measured reaction's reference as a curator reads it: a library key stays as it is; an
+ * internal id (`measured:<uuid>`) is shortened to its first eight hex digits, enough to tell the
+ * rows of one fit apart (the full id goes in a title).
+ */
+export function shortReactionRef(ref: string): string {
+  const match = /^measured:([0-9a-f]{8})-[0-9a-f-]+$/i.exec(ref);
+  return match ? `measured ${match[1]}` : ref;
+}

@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import type { ConsistencyResult } from '@shared/schemas/derive';
-import { birgeSentence, compareWithLibrary, flaggedSentence } from '@/lib/consistency-words';
+import {
+  birgeSentence,
+  compareWithLibrary,
+  flaggedSentence,
+  groupExcluded,
+  shortReactionRef,
+} from '@/lib/consistency-words';
 
 type Fitted = ConsistencyResult['fitted'][number];
 
@@ -70,5 +76,28 @@ describe('flaggedSentence', () => {
     expect(flaggedSentence({ ...base, residuals: [residual(true), residual(true)] })).toBe(
       '2 measurements lie beyond 2σ of the fit (marked below).',
     );
+  });
+});
+
+describe('groupExcluded', () => {
+  it('groups the measurements left out by reason, in order of first appearance', () => {
+    expect(
+      groupExcluded([
+        { reaction: 'combustion-methane', reason: 'restates values the library already holds' },
+        { reaction: 'C2H4(g) + H2(g) -> C2H6(g)', reason: 'no stated uncertainty' },
+        { reaction: 'combustion-ethane', reason: 'restates values the library already holds' },
+      ]),
+    ).toEqual([
+      { reason: 'restates values the library already holds', reactions: ['combustion-methane', 'combustion-ethane'] },
+      { reason: 'no stated uncertainty', reactions: ['C2H4(g) + H2(g) -> C2H6(g)'] },
+    ]);
+    expect(groupExcluded([])).toEqual([]);
+  });
+});
+
+describe('shortReactionRef', () => {
+  it('shortens internal ids and keeps library keys', () => {
+    expect(shortReactionRef('measured:c3058613-c6c3-4735-802c-d454700c1618')).toBe('measured c3058613');
+    expect(shortReactionRef('combustion-methane')).toBe('combustion-methane');
   });
 });
