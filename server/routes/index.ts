@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
 import { balanceRoutes } from './balance.routes';
+import { calorimetryRoutes } from './calorimetry.routes';
 import { deriveRoutes } from './derive.routes';
 import { derivedValueRoutes } from './derived-values.routes';
 import { healthRoutes } from './health.routes';
@@ -29,6 +30,7 @@ const resourceRoutes: AnyRoute[] = [
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,
+  ...calorimetryRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

@@ -69,6 +69,8 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/teams/:teamId/derived-values': { team: 'viewer' },
   'POST /api/v1/teams/:teamId/derived-values': { team: 'member' },
   'DELETE /api/v1/teams/:teamId/derived-values/:valueId': { team: 'member' },
+  'POST /api/v1/calorimetry/constant-pressure': 'public',
+  'POST /api/v1/calorimetry/bomb': 'public',
   'GET /api/v1/test/curator-probe': { site: 'curator' },
 };
 
