@@ -7,7 +7,23 @@ import {
   MAX_CALIBRATION_RUNS,
   MAX_SERIES_POINTS,
 } from '@shared/schemas/calorimetry';
+import {
+  calorimetryRunInputSchema,
+  calorimetryRunListSchema,
+  calorimetryRunParamsSchema,
+  calorimetryRunPatchSchema,
+  calorimetryRunSchema,
+} from '@shared/schemas/calorimetry-runs';
+import { teamIdParamsSchema } from '@shared/schemas/common';
+import { requireActor } from '../context';
 import type { AppConfig } from '../env';
+import {
+  createCalorimetryRun,
+  deleteCalorimetryRun,
+  getCalorimetryRun,
+  listCalorimetryRuns,
+  updateCalorimetryRun,
+} from '../services/calorimetry-runs.service';
 import { reduceBomb, reduceConstantPressure } from '../services/calorimetry.service';
 import { defineRoute } from './registry';
 
@@ -51,5 +67,61 @@ export const calorimetryRoutes = [
     request: { body: bombInputSchema },
     responses: { 200: bombResultSchema },
     handler: ({ ctx, body }) => reduceBomb(ctx, body),
+  }),
+];
+
+/** A team's saved runs: viewers read, members write. */
+export const calorimetryRunRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/teams/:teamId/calorimetry/runs',
+    summary: "The team's calorimeter runs, newest change first (without their readings)",
+    tags: ['calorimetry'],
+    access: { team: 'viewer' },
+    request: { params: teamIdParamsSchema },
+    responses: { 200: calorimetryRunListSchema },
+    handler: ({ ctx, params }) => listCalorimetryRuns(ctx, params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/teams/:teamId/calorimetry/runs',
+    summary: 'Save a run: its readings and inputs, reduced again on the server',
+    description:
+      'The inputs are the body of POST /calorimetry/constant-pressure or /calorimetry/bomb; they are reduced again before saving (same 400/422 as those routes, nothing saved). The uploaded readings file may be kept with the run as evidence.',
+    tags: ['calorimetry'],
+    access: { team: 'member' },
+    request: { params: teamIdParamsSchema, body: calorimetryRunInputSchema },
+    responses: { 201: calorimetryRunSchema },
+    handler: ({ ctx, params, body }) => createCalorimetryRun(requireActor(ctx), { ...body, ...params }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/teams/:teamId/calorimetry/runs/:runId',
+    summary: 'One run with its inputs, readings, evidence and result',
+    tags: ['calorimetry'],
+    access: { team: 'viewer' },
+    request: { params: calorimetryRunParamsSchema },
+    responses: { 200: calorimetryRunSchema },
+    handler: ({ ctx, params }) => getCalorimetryRun(ctx, params),
+  }),
+  defineRoute({
+    method: 'patch',
+    path: '/teams/:teamId/calorimetry/runs/:runId',
+    summary: "Change a run's label or note",
+    tags: ['calorimetry'],
+    access: { team: 'member' },
+    request: { params: calorimetryRunParamsSchema, body: calorimetryRunPatchSchema },
+    responses: { 200: calorimetryRunSchema },
+    handler: ({ ctx, params, body }) => updateCalorimetryRun(requireActor(ctx), { ...body, ...params }),
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/teams/:teamId/calorimetry/runs/:runId',
+    summary: 'Delete a run',
+    tags: ['calorimetry'],
+    access: { team: 'member' },
+    request: { params: calorimetryRunParamsSchema },
+    responses: { 204: null },
+    handler: ({ ctx, params }) => deleteCalorimetryRun(requireActor(ctx), params),
   }),
 ];

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
 import { balanceRoutes } from './balance.routes';
-import { calorimetryRoutes } from './calorimetry.routes';
+import { calorimetryRoutes, calorimetryRunRoutes } from './calorimetry.routes';
 import { deriveRoutes } from './derive.routes';
 import { derivedValueRoutes } from './derived-values.routes';
 import { healthRoutes } from './health.routes';
@@ -31,6 +31,7 @@ const resourceRoutes: AnyRoute[] = [
   ...deriveRoutes,
   ...derivedValueRoutes,
   ...calorimetryRoutes,
+  ...calorimetryRunRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

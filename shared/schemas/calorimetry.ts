@@ -150,7 +150,7 @@ export const constantPressureInputSchema = z.object({
 });
 export type ConstantPressureInput = z.infer<typeof constantPressureInputSchema>;
 
-const energy = (unit: string) =>
+const energy = <const U extends string>(unit: U) =>
   z.object({ value: z.number(), uncertainty: z.number().nullable(), unit: z.literal(unit) });
 
 export const contributionSchema = z.object({

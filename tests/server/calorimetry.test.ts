@@ -209,3 +209,69 @@ describe('POST /api/v1/calorimetry/bomb', () => {
     expect(paths(res)).toEqual(['body.sample.formula']);
   });
 });
+
+describe('/api/v1/teams/:teamId/calorimetry/runs', () => {
+  it('lets a member save a run with its readings, reduced again on the server, that viewers read', async () => {
+    const member = await t.signIn('member');
+    const viewer = await t.signIn('viewer');
+    const base = `/api/v1/teams/${t.ids.teams.kestrel}/calorimetry/runs`;
+    const csv = 'time_s,temp_C\n0,22.50\n600,25.86\n';
+    const saved = await member.post(base).send({
+      kind: 'constant-pressure',
+      label: 'Neutralisation, run 1',
+      inputs: neutralisation,
+      evidence: { fileName: 'run1.csv', text: csv },
+    });
+    expect(saved.status).toBe(201);
+    expect(saved.body.result.deltaH.value).toBeCloseTo(-56.2, 1);
+    expect(saved.body.evidence).toEqual({ fileName: 'run1.csv', text: csv });
+    expect(saved.body.authorName.length).toBeGreaterThan(0);
+
+    const list = await viewer.get(base);
+    expect(list.status).toBe(200);
+    const line = list.body.runs.find((r: { id: string }) => r.id === saved.body.id);
+    expect(line).toMatchObject({ kind: 'constant-pressure', label: 'Neutralisation, run 1' });
+    expect(line.deltaH.value).toBeCloseTo(-56.2, 1);
+    const one = await viewer.get(`${base}/${saved.body.id}`);
+    expect(one.body.inputs).toEqual(neutralisation);
+
+    const renamed = await member.patch(`${base}/${saved.body.id}`).send({ label: 'Neutralisation A' });
+    expect(renamed.status).toBe(200);
+    expect(renamed.body.label).toBe('Neutralisation A');
+    expect((await viewer.delete(`${base}/${saved.body.id}`)).status).toBe(403);
+    expect((await member.delete(`${base}/${saved.body.id}`)).status).toBe(204);
+    expect((await viewer.get(`${base}/${saved.body.id}`)).status).toBe(404);
+  });
+
+  it('keeps the library revision of a bomb run', async () => {
+    const member = await t.signIn('member');
+    const res = await member.post(`/api/v1/teams/${t.ids.teams.kestrel}/calorimetry/runs`).send({
+      kind: 'bomb',
+      label: 'Naphthalene',
+      inputs: {
+        sample: { formula: 'C10H8', phase: 'cr' },
+        energyEquivalent: { value: 10.17, unit: 'kJ/K' },
+        runs: [{ mass: { value: 1.435, unit: 'g' }, temperature: { rise: { value: 5.67, unit: 'K' } } }],
+      },
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.libraryRevision).toBe(1);
+  });
+
+  it('saves nothing when the inputs cannot be reduced, naming the field', async () => {
+    const member = await t.signIn('member');
+    const base = `/api/v1/teams/${t.ids.teams.kestrel}/calorimetry/runs`;
+    const before = (await member.get(base)).body.runs.length;
+    const res = await member.post(base).send({
+      kind: 'constant-pressure',
+      label: 'Bad',
+      inputs: {
+        ...neutralisation,
+        reaction: { ...neutralisation.reaction, limiting: { term: 9, amount: { value: 1, unit: 'mol' } } },
+      },
+    });
+    expect(res.status).toBe(400);
+    expect(paths(res)).toEqual(['body.inputs.reaction.limiting.term']);
+    expect((await member.get(base)).body.runs.length).toBe(before);
+  });
+});
