@@ -16,6 +16,7 @@ import {
 } from '@shared/schemas/calorimetry-runs';
 import { teamIdParamsSchema } from '@shared/schemas/common';
 import { requireActor } from '../context';
+import { MAX_CALORIMETRY_READINGS, measureCalorimetryWork } from '../calc/work-limits';
 import type { AppConfig } from '../env';
 import {
   createCalorimetryRun,
@@ -32,6 +33,7 @@ const n = (value: number) => value.toLocaleString('en');
 function limits(config: AppConfig): string[] {
   const { timeBudgetMs, requestsPerMinute } = config.calc;
   return [
+    `At most ${n(MAX_CALORIMETRY_READINGS)} temperature readings in one request over all its series, checked before parsing: 413 payload_too_large with details {limit: "seriesReadings", max, found}.`,
     `At most ${n(MAX_SERIES_POINTS)} readings in one series, ${n(MAX_BOMB_RUNS)} sample or calibration runs and ${n(MAX_CALIBRATION_RUNS)} calibration runs of a constant-pressure calorimeter (400 validation_failed naming the field); the request body is at most 1 MB.`,
     `The reduction runs off the request thread within ${n(timeBudgetMs)} ms, waiting included (CALC_TIME_BUDGET_MS): past it, or with the queue full, 503 unavailable with Retry-After.`,
     `Per network address: ${n(requestsPerMinute)} requests a minute (CALC_RATE_LIMIT_PER_MINUTE), shared with the other calculations: 429 with Retry-After.`,
@@ -49,6 +51,7 @@ export const calorimetryRoutes = [
     tags: ['calculations', 'calorimetry'],
     access: 'public',
     rateLimit: 'calc',
+    measureWork: measureCalorimetryWork,
     describeLimits: limits,
     request: { body: constantPressureInputSchema },
     responses: { 200: constantPressureResultSchema },
@@ -63,6 +66,7 @@ export const calorimetryRoutes = [
     tags: ['calculations', 'calorimetry'],
     access: 'public',
     rateLimit: 'calc',
+    measureWork: measureCalorimetryWork,
     describeLimits: limits,
     request: { body: bombInputSchema },
     responses: { 200: bombResultSchema },
