@@ -181,6 +181,14 @@ function replicateReply(s: ReplicateStatistics) {
   };
 }
 
+/** The inputs without a stated uncertainty, in words ("the volume of the solution, …"). */
+function missingLabels(p: Propagation): string {
+  return p.contributions
+    .filter((c) => p.missing.includes(c.id))
+    .map((c) => c.label.charAt(0).toLowerCase() + c.label.slice(1))
+    .join(', ');
+}
+
 /** u of a propagation, or null when no input stated one. */
 const uOf = (p: Propagation) => (p.missing.length === p.contributions.length ? null : p.u);
 
@@ -319,7 +327,7 @@ export function reduceConstantPressureRequest(input: ConstantPressureInput): Con
   if (r.deltaH.missing.length > 0)
     warnings.push({
       code: 'uncertainty_incomplete',
-      message: `No uncertainty was stated for ${r.deltaH.missing.join(', ')}: the uncertainty shown covers the other inputs only.`,
+      message: `No uncertainty was stated for ${missingLabels(r.deltaH)}: the uncertainty shown covers the other inputs only.`,
     });
   const concentrations = input.concentrations ?? [];
   const aqueous = reaction.terms.some((x) => x.phase === 'aq');
@@ -543,7 +551,7 @@ export function reduceBombRequest(
   if (final.missing.length > 0)
     warnings.push({
       code: 'uncertainty_incomplete',
-      message: `No uncertainty was stated for ${final.missing.join(', ')}: the uncertainty shown covers the other inputs only.`,
+      message: `No uncertainty was stated for ${missingLabels(final)}: the uncertainty shown covers the other inputs only.`,
     });
   const used: AuxiliaryValue[] = formation
     ? reaction.terms

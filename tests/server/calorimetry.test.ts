@@ -7,6 +7,8 @@ import { startTestApp, type TestApp } from './helpers';
 let t: TestApp;
 beforeAll(async () => {
   t = await startTestApp({ config: { calc: { requestsPerMinute: 100 } } });
+  // Start a worker and load the core once, so the first test does not pay for it within the time budget.
+  await t.app.locals.deps.calc.warmUp();
 });
 afterAll(async () => t?.close());
 
