@@ -3,6 +3,7 @@ import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
 import { amendmentRoutes } from './amendments.routes';
 import { balanceRoutes } from './balance.routes';
+import { calorimetryRoutes, calorimetryRunRoutes } from './calorimetry.routes';
 import { deriveRoutes } from './derive.routes';
 import { derivedValueRoutes } from './derived-values.routes';
 import { healthRoutes } from './health.routes';
@@ -33,6 +34,8 @@ const resourceRoutes: AnyRoute[] = [
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,
+  ...calorimetryRoutes,
+  ...calorimetryRunRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

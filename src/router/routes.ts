@@ -45,6 +45,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { access: 'public', title: 'Species' },
   },
   {
+    path: '/calorimetry',
+    name: 'calorimetry',
+    component: () => import('@/views/CalorimetryView.vue'),
+    meta: { access: 'public', title: 'Calorimetry' },
+  },
+  {
     path: '/sign-in',
     name: 'sign-in',
     component: () => import('@/views/SignInView.vue'),

@@ -87,6 +87,13 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/teams/:teamId/derived-values': { team: 'viewer' },
   'POST /api/v1/teams/:teamId/derived-values': { team: 'member' },
   'DELETE /api/v1/teams/:teamId/derived-values/:valueId': { team: 'member' },
+  'POST /api/v1/calorimetry/constant-pressure': 'public',
+  'POST /api/v1/calorimetry/bomb': 'public',
+  'GET /api/v1/teams/:teamId/calorimetry/runs': { team: 'viewer' },
+  'POST /api/v1/teams/:teamId/calorimetry/runs': { team: 'member' },
+  'GET /api/v1/teams/:teamId/calorimetry/runs/:runId': { team: 'viewer' },
+  'PATCH /api/v1/teams/:teamId/calorimetry/runs/:runId': { team: 'member' },
+  'DELETE /api/v1/teams/:teamId/calorimetry/runs/:runId': { team: 'member' },
   'GET /api/v1/test/curator-probe': { site: 'curator' },
 };
 
@@ -133,7 +140,7 @@ function urlFor(route: AnyRoute): string {
   const path = route.path
     .replace(':teamId', t.ids.teams.kestrel)
     .replace(':token', 'x'.repeat(43))
-    .replace(/:(userId|noteId|invitationId|tokenId|amendmentId|fileId)/g, () => randomUUID());
+    .replace(/:(userId|noteId|invitationId|tokenId|amendmentId|fileId|runId)/g, () => randomUUID());
   return `/api/v1${path}`;
 }
 

@@ -12,3 +12,4 @@ export * from './library';
 export * from './derived-values';
 export * from './amendments';
 export * from './notifications';
+export * from './calorimetry-runs';
