@@ -115,14 +115,19 @@ export function assertReplyWithinLimit(bytes: number, limits: CalcLimits): void 
 /** The most time–temperature readings one calorimetry request may carry, over all its series. */
 export const MAX_CALORIMETRY_READINGS = 20_000;
 
+/** `value[key]` when value is a non-null object; the body is untrusted JSON (null, arrays, numbers). */
+function field(value: unknown, key: string): unknown {
+  return typeof value === 'object' && value !== null ? (value as Record<string, unknown>)[key] : undefined;
+}
+
 function seriesLength(temperature: unknown): number {
-  const series = (temperature as { series?: unknown } | undefined)?.series;
+  const series = field(temperature, 'series');
   return Array.isArray(series) ? series.length : 0;
 }
 
 function runsReadings(runs: unknown): number {
   if (!Array.isArray(runs)) return 0;
-  return runs.reduce<number>((sum, run) => sum + seriesLength((run as { temperature?: unknown }).temperature), 0);
+  return runs.reduce<number>((sum, run) => sum + seriesLength(field(run, 'temperature')), 0);
 }
 
 /**
@@ -130,8 +135,10 @@ function runsReadings(runs: unknown): number {
  * (a bomb request may carry one per run). 413 naming the limit; counts as one line.
  */
 export function measureCalorimetryWork(body: unknown): number {
-  const b = body as { temperature?: unknown; runs?: unknown; calibration?: { runs?: unknown } } | undefined;
-  const found = seriesLength(b?.temperature) + runsReadings(b?.runs) + runsReadings(b?.calibration?.runs);
+  const found =
+    seriesLength(field(body, 'temperature')) +
+    runsReadings(field(body, 'runs')) +
+    runsReadings(field(field(body, 'calibration'), 'runs'));
   if (found > MAX_CALORIMETRY_READINGS)
     exceeded(
       'seriesReadings',

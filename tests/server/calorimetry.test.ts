@@ -190,6 +190,14 @@ describe('POST /api/v1/calorimetry/bomb', () => {
     expect(res.body.standardState.note).toMatch(/not applied/);
   });
 
+  it('answers 400, not a server error, for runs that are not objects (found by the API fuzz run)', async () => {
+    for (const runs of [[null], [1], ['x'], [[]]]) {
+      const res = await bomb({ runs, calibration: { runs: [null] } });
+      expect(res.status, JSON.stringify(runs)).toBe(400);
+      expect(paths(res)).toEqual(expect.arrayContaining(['body.runs.0']));
+    }
+  });
+
   it('answers 400 naming each bad field', async () => {
     const res = await bomb({
       sample: { formula: 'C6H6', phase: 'x' },

@@ -46,7 +46,17 @@ describe('EquationField', () => {
   it('ties the input to its label and to the feedback read out to screen readers', () => {
     const wrapper = mount(EquationField, { props: { modelValue: '', problem: null } });
     expect(wrapper.get('label').attributes('for')).toBe('equation-input');
-    expect(wrapper.get('input').attributes('aria-describedby')).toBe('equation-feedback');
-    expect(wrapper.get('#equation-feedback').attributes('aria-live')).toBe('polite');
+    expect(wrapper.get('input').attributes('aria-describedby')).toBe('equation-input-feedback');
+    expect(wrapper.get('#equation-input-feedback').attributes('aria-live')).toBe('polite');
+  });
+
+  it('takes its ids from inputId, so two fields on one page stay apart', () => {
+    const wrapper = mount(EquationField, {
+      props: { modelValue: '', problem: null, inputId: 'target-input', label: 'Target' },
+    });
+    expect(wrapper.get('label').attributes('for')).toBe('target-input');
+    expect(wrapper.get('label').text()).toBe('Target');
+    expect(wrapper.get('input').attributes('aria-describedby')).toBe('target-input-feedback');
+    expect(wrapper.find('#target-input-feedback').exists()).toBe(true);
   });
 });
