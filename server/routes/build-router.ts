@@ -1,6 +1,7 @@
 import { Router, type Request, type RequestHandler } from 'express';
 import type { AppDeps } from '../context';
 import { AppError } from '../errors';
+import { FileReply } from '../lib/file-reply';
 import { RawJson } from '../lib/raw-json';
 import { requireAccess } from '../middleware/access';
 import { calcLineBudget, calcRequestLimit } from '../middleware/rate-limit';
@@ -49,6 +50,11 @@ function runHandler(route: AnyRoute, deps: AppDeps): RequestHandler {
       res,
     });
     if (res.headersSent) return;
+    if (result instanceof FileReply) {
+      // Exports: a file with its own type, downloaded under its name.
+      res.status(status).type(result.contentType).attachment(result.filename).send(result.body);
+      return;
+    }
     let replyStatus = status;
     if (result instanceof ReplyWithStatus) {
       replyStatus = result.status;

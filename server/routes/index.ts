@@ -11,6 +11,7 @@ import { noteRoutes } from './notes.routes';
 import { buildOpenApiDocument } from './openapi';
 import { passwordResetRoutes } from './password-resets.routes';
 import { reactionEnthalpyRoutes } from './reaction-enthalpy.routes';
+import { reactionSetRoutes } from './reaction-sets.routes';
 import { defineRoute, type AnyRoute } from './registry';
 import { sessionRoutes } from './session.routes';
 import { teamRoutes } from './teams.routes';
@@ -29,6 +30,7 @@ const resourceRoutes: AnyRoute[] = [
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,
+  ...reactionSetRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

@@ -136,7 +136,8 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-const TABLES = 'audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
+const TABLES =
+  'reaction_set_links, reaction_set_versions, reaction_sets, audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
 
 async function readIds(open: OpenDatabase): Promise<DemoIds> {
   const { teams, users } = await import('../../server/db/tables/index');

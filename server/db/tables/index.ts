@@ -10,3 +10,4 @@ export * from './audit-log';
 export * from './notes';
 export * from './library';
 export * from './derived-values';
+export * from './reaction-sets';
