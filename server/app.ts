@@ -88,7 +88,7 @@ export function createApp(options: CreateAppOptions): ThermoledgerApp {
 
   app.use(requestLog(log));
   app.use(securityHeaders());
-  app.use([`${API_PREFIX}/shared`, '/s'], shareHeaders());
+  app.use([`${API_PREFIX}/shared`, '/shared'], shareHeaders());
   app.use(API_PREFIX, (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     next();

@@ -9,8 +9,8 @@ export function loggableUrl(url: string): string {
   return url
     .split('?')[0]!
     .replace(/\/invitations\/[^/]+/, '/invitations/…')
-    .replace(/\/shared\/[^/]+/, '/shared/…')
-    .replace(/^\/s\/[^/]+/, '/s/…');
+    // The API's /api/v1/shared/… and the share page's /shared/… alike.
+    .replace(/\/shared\/[^/]+/, '/shared/…');
 }
 
 /**

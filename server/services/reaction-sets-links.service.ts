@@ -44,7 +44,7 @@ function toShareLink(row: ReactionSetLinkRow): ShareLink {
 }
 
 export function shareUrl(ctx: ServiceContext, token: string): string {
-  return `${ctx.config.publicUrl}/s/${token}`;
+  return `${ctx.config.publicUrl}/shared/${token}`;
 }
 
 /**
