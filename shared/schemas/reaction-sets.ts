@@ -102,6 +102,8 @@ export const quantitiesItemSchema = z.object({
     .optional(),
 });
 
+export type AmountInputs = z.infer<typeof quantitiesItemSchema>['amounts'];
+
 export const noteItemSchema = z.object({
   kind: z.literal('note'),
   id: setItemIdSchema.optional(),

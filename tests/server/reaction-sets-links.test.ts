@@ -51,7 +51,7 @@ describe('POST /api/v1/teams/:teamId/sets/:setId/links', () => {
     expect(link.token).toMatch(/^[A-Za-z0-9_-]{65}$/);
     expect(link.url).toBe(`${t.config.publicUrl}/shared/${link.token}`);
     const stored = await t.db.execute(sql`select * from reaction_set_links`);
-    const text = JSON.stringify(stored.rows);
+    const text = JSON.stringify((stored as { rows: unknown[] }).rows);
     expect(text).not.toContain(link.token);
     expect(text).not.toContain(link.token.slice(0, 22));
     expect(text).not.toContain(link.token.slice(22));

@@ -17,6 +17,7 @@ export interface NavItem {
 export const navItems: readonly NavItem[] = [
   { key: 'workbench', label: 'Workbench', routeName: 'workbench', access: 'public' },
   { key: 'library', label: 'Library', routeName: 'library', access: 'public' },
+  { key: 'sets', label: 'Sets', routeName: 'team-sets', access: { team: 'viewer' } },
   { key: 'notes', label: 'Team notes', routeName: 'team-notes', access: { team: 'viewer' } },
   { key: 'members', label: 'Members', routeName: 'team-members', access: { team: 'viewer' } },
   { key: 'admin', label: 'Admin', routeName: 'admin-users', access: { site: 'site_admin' } },
