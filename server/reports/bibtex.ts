@@ -63,9 +63,11 @@ export function bibtexEntry(source: Source): string {
   if (source.year !== null) fields.push(['year', String(source.year)]);
   if (source.volume) fields.push(['volume', texEscape(source.volume)]);
   if (source.pages) fields.push(['pages', pages(source.pages)]);
-  if (source.doi) fields.push(['doi', texEscape(source.doi.replace(/^https?:\/\/(dx\.)?doi\.org\//i, ''))]);
+  // DOIs and URLs are verbatim fields (biblatex, the url package): written as they are, so "_" stays "_";
+  // only braces, which BibTeX itself must balance, keep one out.
+  const doi = source.doi?.replace(/^https?:\/\/(dx\.)?doi\.org\//i, '');
+  if (doi && !/[{}]/.test(doi)) fields.push(['doi', doi]);
   if (source.isbn) fields.push(['isbn', texEscape(source.isbn)]);
-  // URLs go in verbatim (the url package reads them as they are), except for the braces BibTeX needs balanced.
   if (source.url && !/[{}]/.test(source.url)) fields.push(['url', source.url]);
   if (source.note) fields.push(['note', texEscape(source.note)]);
   const body = fields.map(([name, value]) => `  ${name} = {${value}}`).join(',\n');

@@ -52,7 +52,8 @@ function runHandler(route: AnyRoute, deps: AppDeps): RequestHandler {
     if (res.headersSent) return;
     if (result instanceof FileReply) {
       // Exports: a file with its own type, downloaded under its name.
-      res.status(status).type(result.contentType).attachment(result.filename).send(result.body);
+      // attachment() sets a type from the file extension, so our own type goes after it.
+      res.status(status).attachment(result.filename).type(result.contentType).send(result.body);
       return;
     }
     let replyStatus = status;
