@@ -6,11 +6,13 @@ import { pinoHttp } from 'pino-http';
 
 /** The URL as logged: no query string (reset links carry secrets there), invitation and share tokens masked. */
 export function loggableUrl(url: string): string {
-  return url
-    .split('?')[0]!
-    .replace(/\/invitations\/[^/]+/, '/invitations/…')
-    // The API's /api/v1/shared/… and the share page's /shared/… alike.
-    .replace(/\/shared\/[^/]+/, '/shared/…');
+  return (
+    url
+      .split('?')[0]!
+      .replace(/\/invitations\/[^/]+/, '/invitations/…')
+      // The API's /api/v1/shared/… and the share page's /shared/… alike.
+      .replace(/\/shared\/[^/]+/, '/shared/…')
+  );
 }
 
 /**

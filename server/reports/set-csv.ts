@@ -97,7 +97,12 @@ function row(item: SetItem, result: ItemResult, revision: number, position: numb
 export function setCsv(items: readonly SetItem[], evaluation: SetEvaluation): string {
   const byId = new Map(evaluation.results.map((r) => [r.itemId, r]));
   const rows = items.map((item, i) =>
-    row(item, byId.get(item.id) ?? { itemId: item.id, kind: 'note', error: null, value: null }, evaluation.libraryRevision, i + 1),
+    row(
+      item,
+      byId.get(item.id) ?? { itemId: item.id, kind: 'note', error: null, value: null },
+      evaluation.libraryRevision,
+      i + 1,
+    ),
   );
   return Papa.unparse(
     { fields: [...CSV_COLUMNS], data: rows.map((r) => CSV_COLUMNS.map((c) => r[c])) },

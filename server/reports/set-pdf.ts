@@ -111,7 +111,11 @@ class Report {
     for (const line of lines) {
       this.need(size * 2.5);
       const y = this.doc.y;
-      this.doc.font('body').fontSize(size).fillColor(TEXT).text('•', this.left + indent, y, { width: 10 });
+      this.doc
+        .font('body')
+        .fontSize(size)
+        .fillColor(TEXT)
+        .text('•', this.left + indent, y, { width: 10 });
       this.doc.text(line, this.left + indent + 12, y, { width: this.width - indent - 12 });
       this.doc.moveDown(0.15);
     }
@@ -157,7 +161,8 @@ function temperatureWords(t: number): string {
 function writeItem(report: Report, item: SetItem, result: ItemResult | undefined, position: number, revision: number) {
   report.heading(`${position}. ${itemLabel(item)}`, 11);
   if (result?.error) {
-    if ('equation' in item && typeof item.equation === 'string') report.para(typesetEquation(item.equation), { size: 11 });
+    if ('equation' in item && typeof item.equation === 'string')
+      report.para(typesetEquation(item.equation), { size: 11 });
     if (item.kind === 'derivation') report.para(typesetEquation(item.target), { size: 11 });
     report.para(`Not evaluated at library revision ${revision}: ${result.error.message}`, { size: 9.5, color: MUTED });
     return;
@@ -189,7 +194,11 @@ function writeItem(report: Report, item: SetItem, result: ItemResult | undefined
         ]),
         [0.28, 0.08, 0.26, 0.2, 0.18],
       );
-      if (r.warnings.length > 0) report.bullets(r.warnings.map((w) => w.message), 8.5);
+      if (r.warnings.length > 0)
+        report.bullets(
+          r.warnings.map((w) => w.message),
+          8.5,
+        );
       return;
     }
     case 'given-reaction': {
@@ -234,7 +243,11 @@ function writeItem(report: Report, item: SetItem, result: ItemResult | undefined
           [0.08, 0.5, 0.2, 0.22],
         );
       }
-      if (d.warnings.length > 0) report.bullets(d.warnings.map((w) => w.message), 8.5);
+      if (d.warnings.length > 0)
+        report.bullets(
+          d.warnings.map((w) => w.message),
+          8.5,
+        );
       return;
     }
     case 'quantities': {
@@ -242,7 +255,8 @@ function writeItem(report: Report, item: SetItem, result: ItemResult | undefined
       if (!q) return;
       report.para(typesetEquation(q.equation), { size: 12 });
       report.doc.moveDown(0.2);
-      const words = q.direction === 'released' ? 'Heat released' : q.direction === 'absorbed' ? 'Heat absorbed' : 'Net heat';
+      const words =
+        q.direction === 'released' ? 'Heat released' : q.direction === 'absorbed' ? 'Heat absorbed' : 'Net heat';
       report.para(
         `${words}: ${valueWithUncertainty(Math.abs(q.heat.value), q.heat.uncertainty)} kJ (Q = ξ·ΔrH = ${valueWithUncertainty(q.heat.value, q.heat.uncertainty)} kJ)`,
         { font: 'bold' },

@@ -29,7 +29,13 @@ import { requireActor } from '../context';
 import type { AppConfig } from '../env';
 import { evaluateSet, revisionChanges } from '../services/reaction-sets-evaluate.service';
 import { exportSharedSet, exportTeamSet, type ExportFormat } from '../services/reaction-sets-export.service';
-import { copySharedSet, createLink, listLinks, openSharedSet, revokeLink } from '../services/reaction-sets-links.service';
+import {
+  copySharedSet,
+  createLink,
+  listLinks,
+  openSharedSet,
+  revokeLink,
+} from '../services/reaction-sets-links.service';
 import {
   createSet,
   deleteSet,
@@ -121,7 +127,8 @@ export const reactionSetRoutes: AnyRoute[] = [
     method: 'post',
     path: '/teams/:teamId/sets/import',
     summary: 'Import a set from its JSON export',
-    description: 'Re-creates the set as exported (title, description, tags, items with their ids, revision) as a new set of this team; the results in the file are not read, they are computed again.',
+    description:
+      'Re-creates the set as exported (title, description, tags, items with their ids, revision) as a new set of this team; the results in the file are not read, they are computed again.',
     tags: ['sets'],
     access: { team: 'member' },
     request: { params: teamIdParamsSchema, body: setImportInputSchema },
@@ -289,7 +296,8 @@ export const reactionSetRoutes: AnyRoute[] = [
     method: 'post',
     path: '/shared/:token/copy',
     summary: 'Copy a shared set into one of your teams',
-    description: 'Signed-in callers only, into a team where they are a member or above; the copy is pinned to the revision the link shows.',
+    description:
+      'Signed-in callers only, into a team where they are a member or above; the copy is pinned to the revision the link shows.',
     tags: ['sets', 'shared'],
     access: 'signed_in',
     request: { params: sharedParamsSchema, body: copySharedInputSchema },

@@ -4,13 +4,7 @@ import { itemLabel } from '@shared/reaction-sets/diff';
 import type { DeriveResult } from '@shared/schemas/derive';
 import type { Source } from '@shared/schemas/library';
 import type { ReactionEnthalpyResult } from '@shared/schemas/reaction-enthalpy';
-import type {
-  ItemResult,
-  RevisionChanges,
-  RouteChoice,
-  SetEvaluation,
-  SetItem,
-} from '@shared/schemas/reaction-sets';
+import type { ItemResult, RevisionChanges, RouteChoice, SetEvaluation, SetItem } from '@shared/schemas/reaction-sets';
 import type { ServiceContext } from '../context';
 import type { ReactionSetRow } from '../db/tables/index';
 import { AppError } from '../errors';
@@ -32,7 +26,10 @@ import { findSet } from './reaction-sets.service';
 type Energy = { value: number; uncertainty: number | null; unit: 'kJ/mol' };
 
 /** The revision a set reads: its pinned one, or the newest. */
-export async function revisionOf(ctx: ServiceContext, pinned: number | null): Promise<{ revision: number; latest: number }> {
+export async function revisionOf(
+  ctx: ServiceContext,
+  pinned: number | null,
+): Promise<{ revision: number; latest: number }> {
   const latest = await ctx.library.latestRevision();
   if (latest === null) throw new AppError('unavailable', 'The library is empty: it has not been seeded yet.');
   return { revision: pinned ?? latest, latest };
@@ -210,7 +207,7 @@ async function evaluateItem(ctx: ServiceContext, snapshot: LibrarySnapshot, item
                     })),
                   }
                 : null,
-              routeMissing: item.route != null && !chosen,
+              routeMissing: (item.route ?? null) !== null && !chosen,
               routes: d.routes.length,
               consistent: d.consistent,
               uncertaintyComplete: chosen ? chosen.uncertaintyComplete : d.uncertaintyComplete,

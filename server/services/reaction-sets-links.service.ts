@@ -1,12 +1,6 @@
 import { and, desc, eq, lt, or, isNull } from 'drizzle-orm';
 import { teamRoleAtLeast } from '@shared/schemas/roles';
-import type {
-  CreateLinkInput,
-  LinkCreated,
-  ReactionSet,
-  ShareLink,
-  SharedSet,
-} from '@shared/schemas/reaction-sets';
+import type { CreateLinkInput, LinkCreated, ReactionSet, ShareLink, SharedSet } from '@shared/schemas/reaction-sets';
 import type { ActorContext, ServiceContext } from '../context';
 import { reactionSetLinks, reactionSets, type ReactionSetLinkRow, type ReactionSetRow } from '../db/tables/index';
 import { AppError, errors } from '../errors';
@@ -75,7 +69,13 @@ export async function createLink(
   if (input.email) {
     try {
       await ctx.mailer.send(
-        setLinkMail({ to: input.email, senderName: ctx.actor.user.displayName, setTitle: set.title, link: url, expiresAt }),
+        setLinkMail({
+          to: input.email,
+          senderName: ctx.actor.user.displayName,
+          setTitle: set.title,
+          link: url,
+          expiresAt,
+        }),
       );
     } catch (err) {
       ctx.log.error({ err, requestId: ctx.meta.requestId }, 'share-link e-mail could not be sent');
@@ -185,10 +185,7 @@ export async function openSharedSet(ctx: ServiceContext, input: { token: string 
  * A signed-in reader copies a shared set into a team where they are a member or above. The copy
  * is pinned to the revision the link showed, so it starts with the same numbers.
  */
-export async function copySharedSet(
-  ctx: ActorContext,
-  input: { token: string; teamId: string },
-): Promise<ReactionSet> {
+export async function copySharedSet(ctx: ActorContext, input: { token: string; teamId: string }): Promise<ReactionSet> {
   const { set } = await resolveShareToken(ctx, input.token);
   const role = await teamRoleOf(ctx, { teamId: input.teamId });
   if (!role || !teamRoleAtLeast(role, 'member'))

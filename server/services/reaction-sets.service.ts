@@ -239,8 +239,7 @@ export async function updateSet(
   ctx: ActorContext,
   input: UpdateSetInput & { teamId: string; setId: string },
 ): Promise<ReactionSet> {
-  const pinned =
-    input.revision === undefined ? undefined : await pinnedColumn(ctx, input.revision, ['revision']);
+  const pinned = input.revision === undefined ? undefined : await pinnedColumn(ctx, input.revision, ['revision']);
   return saveState(ctx, input, (row) => {
     const current = stateOf(row);
     return {

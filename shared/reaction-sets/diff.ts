@@ -72,7 +72,8 @@ export function diffSetStates(before: SetState, after: SetState): SetDiff {
   const items: SetDiff['items'] = [];
   for (const item of after.items) {
     const old = beforeById.get(item.id);
-    if (!old) items.push({ id: item.id, change: 'added', label: itemLabel(item), fields: [], before: null, after: item });
+    if (!old)
+      items.push({ id: item.id, change: 'added', label: itemLabel(item), fields: [], before: null, after: item });
     else if (!same(old, item))
       items.push({
         id: item.id,

@@ -27,9 +27,7 @@ export const SET_LIMITS = {
   equation: 2_000,
 } as const;
 
-export const setItemIdSchema = z
-  .string()
-  .regex(/^[A-Za-z0-9_-]{1,64}$/, 'An item id is 1–64 letters, digits, - or _.');
+export const setItemIdSchema = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'An item id is 1–64 letters, digits, - or _.');
 
 const label = plainText().trim().max(200, 'A label may be up to 200 characters.');
 const equation = (what: string) =>

@@ -13,9 +13,10 @@ export function workbenchItems(input: {
   temperature: TemperatureInput | null;
   amounts?: AmountInputs;
 }): SetItemInput[] {
-  const temperature = input.temperature && !(input.temperature.unit === 'K' && input.temperature.value === 298.15)
-    ? { temperature: input.temperature }
-    : {};
+  const temperature =
+    input.temperature && !(input.temperature.unit === 'K' && input.temperature.value === 298.15)
+      ? { temperature: input.temperature }
+      : {};
   const items: SetItemInput[] = [{ kind: 'reaction', equation: input.equation, ...temperature }];
   if (input.amounts && input.amounts.length > 0)
     items.push({ kind: 'quantities', equation: input.equation, amounts: input.amounts, ...temperature });
@@ -57,7 +58,9 @@ export function itemOpenLink(item: SetItemInput): RouteLocationRaw | null {
 }
 
 /** Reads the workbench's `?equation=…&temperature=298.15 K` back (what {@link itemOpenLink} wrote). */
-export function workbenchQuery(query: Record<string, unknown>): { equation: string; temperature: TemperatureInput | null } | null {
+export function workbenchQuery(
+  query: Record<string, unknown>,
+): { equation: string; temperature: TemperatureInput | null } | null {
   const equation = typeof query.equation === 'string' ? query.equation.trim() : '';
   if (!equation) return null;
   const match = typeof query.temperature === 'string' ? /^(-?\d+(?:\.\d+)?) (K|C|F)$/.exec(query.temperature) : null;

@@ -49,7 +49,9 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
   let timer: ReturnType<typeof setTimeout> | null = null;
   let inFlight: Promise<void> | null = null;
 
-  const dirty = computed(() => draft.value !== null && current.value !== null && draftKey(draft.value) !== draftKey(current.value));
+  const dirty = computed(
+    () => draft.value !== null && current.value !== null && draftKey(draft.value) !== draftKey(current.value),
+  );
 
   function cancelTimer(): void {
     if (timer !== null) clearTimeout(timer);
@@ -137,7 +139,8 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
             reason: `${stale.current.updatedBy} saved version ${stale.currentVersion} while you were editing.`,
           };
         } else {
-          const retry = !(error instanceof ApiError) || error.status === 0 || error.status >= 500 || error.status === 429;
+          const retry =
+            !(error instanceof ApiError) || error.status === 0 || error.status >= 500 || error.status === 429;
           status.value = { state: 'failed', reason: apiErrorText(error), retry };
         }
       } finally {

@@ -61,7 +61,9 @@ const created = await fetch(`${t.url}/api/v1/teams/${t.ids.teams.kestrel}/sets`,
 if (created.status !== 201) throw new Error(`create: ${created.status} ${await created.text()}`);
 const set = (await created.json()) as { id: string; version: number };
 const setUrl = `${t.url}/api/v1/teams/${t.ids.teams.kestrel}/sets/${set.id}`;
-const link = (await (await fetch(`${setUrl}/links`, { method: 'POST', headers, body: '{}' })).json()) as { token: string };
+const link = (await (await fetch(`${setUrl}/links`, { method: 'POST', headers, body: '{}' })).json()) as {
+  token: string;
+};
 const sharedUrl = `${t.url}/api/v1/shared/${link.token}`;
 let version = set.version;
 

@@ -31,7 +31,9 @@ describe('reaction sets', () => {
     await page.getByRole('tab', { name: 'Edit' }).click();
     await page.getByRole('button', { name: 'Add a derivation' }).click();
     await page.getByLabel('Target reaction').fill(DERIVATION_TARGET);
-    await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 15_000 }).toContain('All changes saved');
+    await expect
+      .poll(() => page.getByTestId('save-status').textContent(), { timeout: 15_000 })
+      .toContain('All changes saved');
     await page.getByRole('tab', { name: 'Results' }).click();
     const figures = page.getByTestId('item-delta-h');
     await expect.poll(() => figures.count(), { timeout: 15_000 }).toBe(2);
@@ -67,9 +69,9 @@ describe('reaction sets', () => {
     await page.getByTestId('revoke-link').click();
     await expect.poll(() => page.getByTestId('share-links').textContent()).toContain('revoked');
     await reader.reload();
-    await expect.poll(() => reader.getByRole('heading', { level: 1 }).textContent(), { timeout: 15_000 }).toBe(
-      'This link opens nothing',
-    );
+    await expect
+      .poll(() => reader.getByRole('heading', { level: 1 }).textContent(), { timeout: 15_000 })
+      .toBe('This link opens nothing');
     expect(await reader.getByTestId('item-delta-h').count()).toBe(0);
   });
 
@@ -114,7 +116,9 @@ describe('reaction sets', () => {
     await page.getByTestId('set-conflict').waitFor({ timeout: 15_000 });
     expect(await page.getByTestId('save-status').textContent()).toContain('Not saved');
     await page.getByTestId('reapply-edit').click();
-    await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 15_000 }).toContain('All changes saved');
+    await expect
+      .poll(() => page.getByTestId('save-status').textContent(), { timeout: 15_000 })
+      .toContain('All changes saved');
     const saved = await page.evaluate(
       async ({ teamId, id }) => (await fetch(`/api/v1/teams/${teamId}/sets/${id}`)).json(),
       { teamId, id: created.id },

@@ -25,7 +25,12 @@ const setsUrl = () => `/api/v1/teams/${t.ids.teams.kestrel}/sets`;
 
 const ITEMS = [
   { kind: 'reaction', id: 'propane', label: 'Burner feed', equation: 'C3H8(g) + 5 O2(g) -> 3 CO2(g) + 4 H2O(l)' },
-  { kind: 'reaction', id: 'ammonia', equation: 'N2(g) + 3 H2(g) <=> 2 NH3(g)', temperature: { value: 298.15, unit: 'K' } },
+  {
+    kind: 'reaction',
+    id: 'ammonia',
+    equation: 'N2(g) + 3 H2(g) <=> 2 NH3(g)',
+    temperature: { value: 298.15, unit: 'K' },
+  },
   {
     kind: 'given-reaction',
     id: 'measured',
@@ -55,7 +60,10 @@ async function makeSet() {
   return res.body as { id: string; version: number; revision: number };
 }
 
-const binary = (res: { on: (e: string, f: (c?: Buffer) => void) => void }, done: (e: Error | null, b: Buffer) => void) => {
+const binary = (
+  res: { on: (e: string, f: (c?: Buffer) => void) => void },
+  done: (e: Error | null, b: Buffer) => void,
+) => {
   const chunks: Buffer[] = [];
   res.on('data', (c) => chunks.push(c!));
   res.on('end', () => done(null, Buffer.concat(chunks)));

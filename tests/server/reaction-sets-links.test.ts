@@ -168,9 +168,7 @@ describe('GET /api/v1/shared/:token (the share-link matrix)', () => {
     for (const body of bodies) expect(body).toEqual(bodies[0]);
 
     const list = await member.get(`${setsUrl()}/${set.id}/links`);
-    const states = Object.fromEntries(
-      (list.body.items as { id: string; state: string }[]).map((l) => [l.id, l.state]),
-    );
+    const states = Object.fromEntries((list.body.items as { id: string; state: string }[]).map((l) => [l.id, l.state]));
     expect(states).toEqual({ [revoked.id]: 'revoked', [expired.id]: 'expired', [valid.id]: 'active' });
     // The valid link still works, and a token of another set opens that set only.
     expect((await t.anon().get(`/api/v1/shared/${valid.token}`)).body.title).toBe('Burner feed');
@@ -217,7 +215,10 @@ describe('GET /api/v1/shared/:token (the share-link matrix)', () => {
   });
 
   it('is rate-limited with the calculation endpoints', async () => {
-    const limited = await startTestApp({ open: { ...t.open, close: async () => {} }, config: { calc: { requestsPerMinute: 3 } } });
+    const limited = await startTestApp({
+      open: { ...t.open, close: async () => {} },
+      config: { calc: { requestsPerMinute: 3 } },
+    });
     try {
       const set = await makeSet();
       const link = await makeLink(set.id);

@@ -84,7 +84,9 @@ describe('a pinned set after a later library revision', () => {
     expect(followingResults.results[0].value.deltaH.value).toBeCloseTo(oldDeltaH + expectedShift, 6);
 
     // Moving is a version of its own; a stale move is refused like a stale save.
-    const renamed = await member.put(`${setsUrl}/${pinned.id}`).send({ version: pinned.version, title: 'Pinned burner' });
+    const renamed = await member
+      .put(`${setsUrl}/${pinned.id}`)
+      .send({ version: pinned.version, title: 'Pinned burner' });
     expect(renamed.status).toBe(200);
     const stale = await member.post(`${setsUrl}/${pinned.id}/move-to-latest`).send({ version: pinned.version });
     expect(stale.status).toBe(409);

@@ -186,7 +186,9 @@ describe('PUT /api/v1/teams/:teamId/sets/:setId', () => {
   it("is 404 for another team's set", async () => {
     const set = await createSet();
     const other = await t.signIn('other_team');
-    const res = await other.put(`/api/v1/teams/${t.ids.teams.larchmont}/sets/${set.id}`).send({ version: 1, title: 'x' });
+    const res = await other
+      .put(`/api/v1/teams/${t.ids.teams.larchmont}/sets/${set.id}`)
+      .send({ version: 1, title: 'x' });
     expect(res.status).toBe(404);
   });
 });

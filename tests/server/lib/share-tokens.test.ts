@@ -1,9 +1,10 @@
+import type * as Crypto from 'node:crypto';
 import { describe, expect, it, vi } from 'vitest';
 
 // Count and inspect every constant-time comparison the token check makes.
 const compared = vi.hoisted(() => ({ calls: [] as [number, number][] }));
 vi.mock('node:crypto', async (importOriginal) => {
-  const actual = await importOriginal<typeof import('node:crypto')>();
+  const actual = await importOriginal<typeof Crypto>();
   return {
     ...actual,
     timingSafeEqual: (a: NodeJS.ArrayBufferView, b: NodeJS.ArrayBufferView) => {
