@@ -56,6 +56,14 @@ const members: Step = {
     await page.getByTestId('members-table').locator('tbody tr').first().waitFor();
   },
 };
+const sets: Step = {
+  name: 'team reaction sets',
+  open: async (page) => {
+    await openTeamArea(page, 'sets');
+    await page.getByRole('heading', { name: 'Reaction sets', level: 1 }).waitFor();
+    await page.getByText(/set\(s\)/).waitFor();
+  },
+};
 const adminPage = (path: string, name: string, ready: (page: Page) => Promise<void>): Step => ({
   name,
   open: async (page) => {
@@ -97,6 +105,13 @@ const walks: Record<Role | 'anonymous', Step[]> = {
       },
     },
     {
+      name: 'share link that opens nothing',
+      open: async (page) => {
+        await page.goto(`/shared/${'A'.repeat(65)}`);
+        await page.getByText('This link opens nothing').waitFor();
+      },
+    },
+    {
       name: 'page not found',
       open: async (page) => {
         await page.goto('/no/such/page');
@@ -109,6 +124,7 @@ const walks: Record<Role | 'anonymous', Step[]> = {
     account,
     notes,
     members,
+    sets,
     {
       name: 'admin page, not allowed',
       open: async (page) => {
@@ -117,8 +133,8 @@ const walks: Record<Role | 'anonymous', Step[]> = {
       },
     },
   ],
-  member: [workbenchBalanced, account, notes, noteComposer, members],
-  teamAdmin: [workbenchBalanced, notes, members],
+  member: [workbenchBalanced, account, notes, noteComposer, members, sets],
+  teamAdmin: [workbenchBalanced, notes, members, sets],
   curator: [workbenchBalanced, account, notes, members],
   siteAdmin: [
     workbenchBalanced,
