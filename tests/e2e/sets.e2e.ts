@@ -98,6 +98,14 @@ describe('reaction sets', () => {
     await page.goto(`/teams/${teamId}/sets`);
     await page.getByLabel('Search').fill(title);
     await expect.poll(() => page.getByTestId('set-row').count(), { timeout: 15_000 }).toBe(1);
+    // The tag filter keeps only sets with the tag.
+    await page.getByLabel('Search').fill('');
+    await page.getByTestId('tag-filter').click();
+    await page.locator('.n-base-select-option', { hasText: 'e2e-tag' }).click();
+    await expect
+      .poll(async () => (await page.getByTestId('set-row').allTextContents()).every((row) => row.includes('e2e-tag')))
+      .toBe(true);
+    expect(await page.getByTestId('set-row').count()).toBeGreaterThan(0);
 
     await page.goto(`/teams/${teamId}/sets/${created.id}`);
     await page.getByRole('tab', { name: 'Edit' }).click();
