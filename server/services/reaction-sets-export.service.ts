@@ -35,6 +35,28 @@ export function exportFileName(title: string, version: number, format: ExportFor
   return `${base}-v${version}.${format}`;
 }
 
+/**
+ * Recent PDFs by set version and the results they print: typesetting a large set takes seconds of
+ * the request thread, and a shared link's PDF is typically fetched by several readers. The
+ * results' `evaluatedAt` is in the key, so a PDF is only reused with the very results it printed.
+ */
+const PDF_CACHE_SIZE = 8;
+const pdfCache = new Map<string, Promise<Buffer>>();
+
+function cachedPdf(key: string, make: () => Promise<Buffer>): Promise<Buffer> {
+  let pdf = pdfCache.get(key);
+  if (pdf) {
+    pdfCache.delete(key);
+    pdfCache.set(key, pdf);
+    return pdf;
+  }
+  pdf = make();
+  pdf.catch(() => pdfCache.delete(key));
+  pdfCache.set(key, pdf);
+  while (pdfCache.size > PDF_CACHE_SIZE) pdfCache.delete(pdfCache.keys().next().value as string);
+  return pdf;
+}
+
 async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFormat): Promise<FileReply> {
   const evaluation = await evaluationOfSet(ctx, set);
   const state = stateOf(set);
@@ -56,8 +78,12 @@ async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFo
     }
     case 'bib':
       return file(setBibtex(evaluation.sources, { title: set.title, revision: evaluation.libraryRevision }));
-    case 'pdf':
-      return file(await setPdf({ state, version: set.version, evaluation, generatedAt: new Date() }));
+    case 'pdf': {
+      const key = `${set.id}|${set.version}|${evaluation.libraryRevision}|${evaluation.latestRevision}|${evaluation.evaluatedAt}`;
+      return file(
+        await cachedPdf(key, () => setPdf({ state, version: set.version, evaluation, generatedAt: new Date() })),
+      );
+    }
   }
 }
 
