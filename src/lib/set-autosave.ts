@@ -3,6 +3,7 @@
  * and why) follows from the last reply and whether the draft moved on since it was sent. Pure, so
  * the rules are tested without a server.
  */
+import { canonicalJson } from '@shared/reaction-sets/diff';
 import type { SetItem, SetItemInput, SetRevision, SetState } from '@shared/schemas/reaction-sets';
 
 /** The part of a set people edit on its page. */
@@ -40,9 +41,12 @@ export function saveStatusWords(status: SaveStatus): string {
   }
 }
 
-/** A stable text of a draft, to tell whether it changed since a save was sent. */
+/**
+ * A stable text of a draft, to tell whether it changed since a save was sent: keys sorted and
+ * undefined left out, so the server's copy of the same items (keys in its schema's order) compares equal.
+ */
 export function draftKey(draft: SetDraft): string {
-  return JSON.stringify([draft.title, draft.description, draft.tags, draft.items, draft.revision]);
+  return canonicalJson([draft.title, draft.description, draft.tags, draft.items, draft.revision]);
 }
 
 /** A copy of a set's editable fields (items deep-copied, so edits never touch the server copy). */

@@ -127,8 +127,11 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
     inFlight = (async () => {
       try {
         const saved = await setsApi.updateSet(teamId.value!, base.id, { version: base.version, ...sent });
-        adopt(saved, true);
-        status.value = draftKey(draft.value!) === sentKey ? { state: 'saved' } : { state: 'pending' };
+        // No edit since sending: take the server's copy (trimmed text, ids) as the draft, so the
+        // page is not left "not saved" by differences the server made itself.
+        const unchanged = draftKey(draft.value!) === sentKey;
+        adopt(saved, !unchanged);
+        status.value = unchanged ? { state: 'saved' } : { state: 'pending' };
         void refreshResults().catch(() => undefined);
       } catch (error) {
         const stale = setsApi.conflictOf(error);

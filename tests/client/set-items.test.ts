@@ -79,6 +79,11 @@ describe('set autosave helpers', () => {
     expect(draftKey(draftOf(draft))).toBe(draftKey(draft));
   });
 
+  it('compare a draft with the server copy of the same items whatever the order of their keys', () => {
+    const server = { ...draft, items: [{ id: 'n1', text: 'x', kind: 'note' as const, label: undefined }] };
+    expect(draftKey(server)).toBe(draftKey(draft));
+  });
+
   it('give every item an id for the diff', () => {
     const state = stateOf({ ...draft, items: [{ kind: 'note', text: 'no id yet' }] });
     expect(state.items[0]!.id).toBe('unsaved-0');
