@@ -180,6 +180,14 @@ export default tseslint.config(
         'error',
         { argument: 'title', element: 'NCard', message: 'Use SectionCard: NCard titles are headings without a level.' },
       ],
+      'vue/no-restricted-syntax': [
+        'error',
+        {
+          selector:
+            "VElement[rawName='NCard'] > VElement[name='template'] > VStartTag > VAttribute[directive=true][key.argument.name='header']",
+          message: 'Use SectionCard: the NCard header slot renders headings without a level.',
+        },
+      ],
     },
   },
   // server/, scripts, configs: Node.

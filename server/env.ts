@@ -1,3 +1,4 @@
+import path from 'node:path';
 import { isIP } from 'node:net';
 import os from 'node:os';
 import { z } from 'zod';
@@ -103,6 +104,13 @@ export const envSchema = z
     SESSION_TTL_DAYS: positiveInt(30),
     /** A session unused for this long ends. */
     SESSION_IDLE_HOURS: positiveInt(72),
+    /** Largest evidence file of an amendment, in MB. */
+    EVIDENCE_MAX_FILE_MB: positiveInt(10),
+    /** Most evidence files in one upload request, and on one amendment. */
+    EVIDENCE_MAX_FILES_PER_UPLOAD: positiveInt(5),
+    EVIDENCE_MAX_FILES_PER_AMENDMENT: positiveInt(20),
+    /** Hour (UTC, 0–23) at which the daily digest of amendment news is sent. */
+    DIGEST_HOUR_UTC: z.coerce.number().int().min(0).max(23).default(7),
   })
   .superRefine((env, ctx) => {
     if (env.CALC_LINES_PER_MINUTE < env.CALC_MAX_BATCH_LINES) {
@@ -169,6 +177,13 @@ export interface AppConfig {
   /** Check every reply against its declared schema (off in production for speed). */
   checkResponses: boolean;
   version: string;
+  /**
+   * Evidence files of amendments: stored under generated names in `dir` (inside DATA_DIR, never
+   * served statically), with the size and count limits of uploads.
+   */
+  evidence: { dir: string; maxFileBytes: number; maxFilesPerUpload: number; maxFilesPerAmendment: number };
+  /** Hour (UTC) of the daily digest of amendment news. */
+  digestHourUtc: number;
 }
 
 /** Thrown when an environment variable holds a value the server cannot use. */
@@ -221,5 +236,12 @@ export function configFromEnv(env: Env): AppConfig {
     session: { ttlMs: env.SESSION_TTL_DAYS * 86_400_000, idleMs: env.SESSION_IDLE_HOURS * 3_600_000 },
     checkResponses: env.NODE_ENV !== 'production',
     version: '0.1.0',
+    evidence: {
+      dir: path.resolve(env.DATA_DIR, 'evidence'),
+      maxFileBytes: env.EVIDENCE_MAX_FILE_MB * 1024 * 1024,
+      maxFilesPerUpload: env.EVIDENCE_MAX_FILES_PER_UPLOAD,
+      maxFilesPerAmendment: env.EVIDENCE_MAX_FILES_PER_AMENDMENT,
+    },
+    digestHourUtc: env.DIGEST_HOUR_UTC,
   };
 }

@@ -10,6 +10,7 @@ import { createLogger } from './lib/logger';
 import { seedLibrary } from './library/seed-library';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
+import { scheduleDailyDigests } from './services/notifications.service';
 import { PUBLISHED_DEMO_PASSWORD } from '../seeds/demo/demo-seed';
 
 function demoLines(demo: DemoOutcome): string[] {
@@ -70,11 +71,13 @@ async function main(): Promise<void> {
   ];
   console.log(summary.join('\n'));
 
+  const stopDigests = scheduleDailyDigests(app.locals.deps);
   let stopping = false;
   const stop = async (signal: string) => {
     if (stopping) return;
     stopping = true;
     console.log(`${signal}: shutting down`);
+    stopDigests();
     server.close();
     server.closeAllConnections();
     await app.locals.close();

@@ -55,6 +55,19 @@ export function loadDemoSeed(): DemoSeed {
   return seed;
 }
 
+const demoReactionsSchema = z.array(
+  z.object({ id: z.string(), team: z.string(), label: z.string(), equation: z.string() }),
+);
+export type DemoReaction = z.infer<typeof demoReactionsSchema>[number];
+
+/**
+ * The reactions the demo teams work on (seeds/demo/reactions.json): what the impact of a library
+ * amendment is shown on. Not written to the database; read where they are evaluated.
+ */
+export function loadDemoReactions(): DemoReaction[] {
+  return readJson('reactions.json', demoReactionsSchema);
+}
+
 /** E-mail of each demo account, by the part it plays. */
 export const demoAccounts: Readonly<Record<DemoAccountKey, string>> = Object.fromEntries(
   loadDemoSeed().users.map((u) => [u.key, u.email]),

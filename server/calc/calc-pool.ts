@@ -89,9 +89,18 @@ export class CalcPool {
     return this.running;
   }
 
-  /** Starts one worker and loads the core, so the first request does not pay for it. */
+  /**
+   * Starts one worker and loads the core, so the first request does not pay for it. Not bound by
+   * the time budget (loading the core on a busy machine can take longer than one calculation may)
+   * and never fatal: a worker that fails to warm up is started again by the first request.
+   */
   async warmUp(): Promise<void> {
-    await this.run({ kind: 'balance', input: { equation: 'H2 + O2 -> H2O' } });
+    try {
+      const task = { kind: 'balance', input: { equation: 'H2 + O2 -> H2O' }, limits: this.settings.limits };
+      await this.pool.run(task as CalcTask);
+    } catch (err) {
+      this.log.warn({ err }, 'calculation worker did not warm up; the first calculation will start one');
+    }
   }
 
   /** Stops every worker (at shutdown). */

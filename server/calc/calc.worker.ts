@@ -3,13 +3,24 @@
 // boundary as plain data: the JSON text of the result, or an error with its API code.
 import { ChemistryError } from '@shared/chemistry/index';
 import type { BalanceInput } from '@shared/schemas/balance';
+import type { BombInput, ConstantPressureInput } from '@shared/schemas/calorimetry';
 import type { CalcLimits } from '../env';
+import { reduceBombRequest, reduceConstantPressureRequest, type AuxiliaryLookup } from './calorimetry-calls';
 import { balanceLines, balanceOne } from './core-calls';
 import { assertReplyWithinLimit, WorkLimitExceeded } from './work-limits';
 
 /** A calculation the pool can run. */
 export type CalcTask =
-  { kind: 'balance'; input: BalanceInput; limits: CalcLimits } | { kind: 'batch'; text: string; limits: CalcLimits };
+  | { kind: 'balance'; input: BalanceInput; limits: CalcLimits }
+  | { kind: 'batch'; text: string; limits: CalcLimits }
+  | { kind: 'constant-pressure'; input: ConstantPressureInput; limits: CalcLimits }
+  | {
+      kind: 'bomb';
+      input: BombInput;
+      auxiliary: AuxiliaryLookup[];
+      libraryRevision: number | null;
+      limits: CalcLimits;
+    };
 
 /** What comes back: the reply body already serialised (so the request thread does not), or a client error. */
 export type CalcOutcome =
@@ -22,6 +33,10 @@ function compute(task: CalcTask): unknown {
       return balanceOne(task.input, task.limits);
     case 'batch':
       return balanceLines(task.text, task.limits);
+    case 'constant-pressure':
+      return reduceConstantPressureRequest(task.input);
+    case 'bomb':
+      return reduceBombRequest(task.input, task.auxiliary, task.libraryRevision);
   }
 }
 

@@ -3,7 +3,13 @@ import type { CalcLimits } from '../env';
 
 /** Names of the work limits, as they appear in `details.limit` of a 413 reply. */
 export type WorkLimitName =
-  'termsPerEquation' | 'distinctSpecies' | 'batchLines' | 'batchBytes' | 'equationLength' | 'replyBytes';
+  | 'termsPerEquation'
+  | 'distinctSpecies'
+  | 'batchLines'
+  | 'batchBytes'
+  | 'equationLength'
+  | 'replyBytes'
+  | 'seriesReadings';
 
 /** A request over one of the work limits: 413 payload_too_large with `{limit, max, found}` (and the line in a batch). */
 export interface WorkLimitProblem {
@@ -104,4 +110,34 @@ export function assertReplyWithinLimit(bytes: number, limits: CalcLimits): void 
       `The answer would be ${(bytes / 1e6).toFixed(1)} MB; replies are limited to ${(limits.maxReplyBytes / 1e6).toFixed(1)} MB. Send fewer equations at a time.`,
     );
   }
+}
+
+/** The most time–temperature readings one calorimetry request may carry, over all its series. */
+export const MAX_CALORIMETRY_READINGS = 20_000;
+
+function seriesLength(temperature: unknown): number {
+  const series = (temperature as { series?: unknown } | undefined)?.series;
+  return Array.isArray(series) ? series.length : 0;
+}
+
+function runsReadings(runs: unknown): number {
+  if (!Array.isArray(runs)) return 0;
+  return runs.reduce<number>((sum, run) => sum + seriesLength((run as { temperature?: unknown }).temperature), 0);
+}
+
+/**
+ * Cheap check of a calorimetry request before parsing: the readings of all its series together
+ * (a bomb request may carry one per run). 413 naming the limit; counts as one line.
+ */
+export function measureCalorimetryWork(body: unknown): number {
+  const b = body as { temperature?: unknown; runs?: unknown; calibration?: { runs?: unknown } } | undefined;
+  const found = seriesLength(b?.temperature) + runsReadings(b?.runs) + runsReadings(b?.calibration?.runs);
+  if (found > MAX_CALORIMETRY_READINGS)
+    exceeded(
+      'seriesReadings',
+      MAX_CALORIMETRY_READINGS,
+      found,
+      `The request carries ${found.toLocaleString('en')} temperature readings; the limit is ${MAX_CALORIMETRY_READINGS.toLocaleString('en')} per request. Thin the series or send the runs separately.`,
+    );
+  return 1;
 }

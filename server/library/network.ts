@@ -90,6 +90,10 @@ export function libraryNetworkOf(snapshot: LibrarySnapshot): LibraryNetwork {
     const id = formationId(entry.id);
     const source = snapshot.sources.get(value.sourceId);
     const basis = derivedBasis(value.derivation);
+    // Inputs a derived value rests on that the library does not hold (a team's own measurement):
+    // registered with the uncertainty its derivation recorded, so routes count them once.
+    for (const extra of derivedInputs(value.derivation))
+      if (!extra.id.startsWith('formation:') && !extra.id.startsWith('measured:')) inputs.set(extra.id, extra);
     reactions.push({
       id,
       kind: 'formation',
@@ -165,8 +169,26 @@ function atReferenceTemperature(snapshot: LibrarySnapshot, r: ReactionEntry): Fr
   return exact(r.deltaHText).sub(exact(increment.toPrecision(12)));
 }
 
+/** The inputs a derived value's derivation records with labels and uncertainties. */
+export function derivedInputs(derivation: Record<string, unknown> | null): InputInfo[] {
+  const weights = derivation?.['weights'];
+  if (!Array.isArray(weights)) return [];
+  const out: InputInfo[] = [];
+  for (const w of weights) {
+    if (typeof w !== 'object' || w === null) continue;
+    const { input, label, uncertainty } = w as { input?: unknown; label?: unknown; uncertainty?: unknown };
+    if (typeof input !== 'string') continue;
+    out.push({
+      id: input,
+      label: typeof label === 'string' ? label : input,
+      uncertainty: typeof uncertainty === 'number' ? uncertainty : null,
+    });
+  }
+  return out;
+}
+
 /** The inputs a derived library value rests on, when its derivation records them. */
-function derivedBasis(derivation: Record<string, unknown> | null): InputWeight[] | null {
+export function derivedBasis(derivation: Record<string, unknown> | null): InputWeight[] | null {
   const weights = derivation?.['weights'];
   if (!Array.isArray(weights)) return null;
   const basis: InputWeight[] = [];

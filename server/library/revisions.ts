@@ -1,4 +1,4 @@
-import { desc, eq, sql } from 'drizzle-orm';
+import { desc, eq, gt, sql } from 'drizzle-orm';
 import type { RevisionKind } from '@shared/schemas/library-core';
 import type { Db, Executor, Tx } from '../db/client';
 import { libraryRevisions } from '../db/tables/index';
@@ -20,6 +20,8 @@ export interface NewRevision {
   kind: RevisionKind;
   summary: string;
   actor?: { id: string; email: string } | null;
+  /** The amendment whose acceptance makes this revision. */
+  amendmentId?: string;
   detail?: Record<string, unknown>;
 }
 
@@ -41,6 +43,7 @@ export async function withNewRevision<T>(
       summary: revision.summary,
       createdBy: revision.actor?.id ?? null,
       createdByEmail: revision.actor?.email ?? null,
+      amendmentId: revision.amendmentId ?? null,
       detail: revision.detail ?? {},
     });
     const result = await change(tx, number);
@@ -48,7 +51,32 @@ export async function withNewRevision<T>(
   });
 }
 
-/** Updates the stored detail of a revision (counts known only after the change ran). */
-export async function setRevisionDetail(tx: Executor, number: number, detail: Record<string, unknown>): Promise<void> {
-  await tx.update(libraryRevisions).set({ detail }).where(eq(libraryRevisions.number, number));
+/** Updates the stored detail of a revision (counts known only after the change ran), and what it touched. */
+export async function setRevisionDetail(
+  tx: Executor,
+  number: number,
+  detail: Record<string, unknown>,
+  touched?: string[],
+): Promise<void> {
+  await tx
+    .update(libraryRevisions)
+    .set({ detail, ...(touched ? { touched } : {}) })
+    .where(eq(libraryRevisions.number, number));
+}
+
+/** The revisions after `after` with what each touched, oldest first (for conflict checks). */
+export async function revisionsAfter(
+  db: Executor,
+  after: number,
+): Promise<{ number: number; amendmentId: string | null; summary: string; touched: string[] }[]> {
+  return db
+    .select({
+      number: libraryRevisions.number,
+      amendmentId: libraryRevisions.amendmentId,
+      summary: libraryRevisions.summary,
+      touched: libraryRevisions.touched,
+    })
+    .from(libraryRevisions)
+    .where(gt(libraryRevisions.number, after))
+    .orderBy(libraryRevisions.number);
 }

@@ -8,6 +8,7 @@ import {
   libraryPropertySchema,
   propertyUnits,
   provenanceSchema,
+  reactionMethods,
   sourceKindSchema,
   uncertaintyKindSchema,
   type HeatCapacityForm,
@@ -15,6 +16,7 @@ import {
   type LibraryProperty,
   type ModelScale,
   type Provenance,
+  type ReactionMethod,
   type SourceKind,
   type UncertaintyKind,
 } from '@shared/schemas/library-core';
@@ -95,6 +97,8 @@ export interface ValueRecord {
   pressureBar: number;
   ionConvention: string | null;
   note: string | null;
+  /** For a value derived in the product (provenance `derived`): its derivation, input weights included. */
+  derivation?: Record<string, unknown> | null;
 }
 
 export interface ModelRecord {
@@ -116,16 +120,7 @@ export interface SelectionRecord {
   reason: string;
 }
 
-export const reactionMethods = [
-  'combustion-calorimetry',
-  'solution-calorimetry',
-  'reaction-calorimetry',
-  'equilibrium',
-  'phase-change',
-  'computed',
-  'other',
-] as const;
-export type ReactionMethod = (typeof reactionMethods)[number];
+export { reactionMethods, type ReactionMethod } from '@shared/schemas/library-core';
 
 export interface ReactionRecord {
   origin: Origin;
@@ -150,6 +145,21 @@ export interface ReactionRecord {
   note: string | null;
 }
 
+/**
+ * A row to close (deprecate): a species (with its values, models and selections), a value, a
+ * model, a measured reaction or a source, named by the keys the applier matches on.
+ */
+export interface DeprecationRecord {
+  origin: Origin;
+  target: 'species' | 'value' | 'model' | 'reaction' | 'source';
+  /** The species key (species, value, model), the reaction key or the source key. */
+  key: string;
+  /** value: its property. */
+  property?: LibraryProperty;
+  /** value, model: the source key. */
+  source?: string;
+}
+
 export interface LibrarySet {
   sources: SourceRecord[];
   species: SpeciesRecord[];
@@ -157,6 +167,8 @@ export interface LibrarySet {
   models: ModelRecord[];
   selections: SelectionRecord[];
   reactions: ReactionRecord[];
+  /** Rows to close; only amendments carry them (the seed files add and revise only). */
+  deprecations?: DeprecationRecord[];
 }
 
 const decimalText = /^-?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
@@ -430,6 +442,36 @@ export function fileKind(
   return null;
 }
 
+/**
+ * A species key read with the equation core: its formula, Hill formula, charge, phase (`s` read
+ * as `cr`), descriptor and molar mass. Throws the core's parse error for text that is not one
+ * species, and an Error for a key without a library phase.
+ */
+export function readSpeciesKey(key: string): {
+  formula: string;
+  hill: string;
+  charge: number;
+  phase: LibraryPhase;
+  descriptor: string | null;
+  molarMass: number;
+  elements: string[];
+} {
+  const parsed = parseFormula(key);
+  const phase = parsed.phase === 's' ? 'cr' : parsed.phase;
+  const checked = libraryPhaseSchema.safeParse(phase);
+  if (!checked.success)
+    throw new Error(`a library species needs one of the phases g, l, cr, am, aq (got ${phase ?? 'none'}).`);
+  return {
+    formula: parsed.formula,
+    hill: parsed.hill,
+    charge: parsed.charge,
+    phase: checked.data,
+    descriptor: parsed.descriptor ?? null,
+    molarMass: parsed.electron ? 0 : molarMass(parsed.composition).value,
+    elements: Object.keys(parsed.composition),
+  };
+}
+
 /** Reads a species key with the equation core and checks it against the row's own columns. */
 function toSpecies(row: z.output<typeof speciesRow>, origin: Origin, problems: SetProblem[]): SpeciesRecord | null {
   let parsed: ReturnType<typeof parseFormula>;
@@ -521,8 +563,11 @@ export function keyOfSpecies(species: { formula: string; phase: string | null; d
   return inside ? `${species.formula}(${inside})` : species.formula;
 }
 
+/** The fields of a reactions-*.csv row once read (what `toReaction` checks together). */
+export type ReactionRow = z.output<typeof reactionRow>;
+
 /** Reads a measured reaction's equation: every species with a phase, balanced as written. */
-function toReaction(r: z.output<typeof reactionRow>, origin: Origin, problems: SetProblem[]): ReactionRecord | null {
+export function toReaction(r: ReactionRow, origin: Origin, problems: SetProblem[]): ReactionRecord | null {
   const fail = (column: string, message: string) => {
     problems.push({ ...origin, column, message });
     return null;

@@ -65,3 +65,75 @@ export function setLinkMail(args: {
     ].join('\n'),
   };
 }
+
+/** What happened to an amendment, for the e-mail to the people it concerns. */
+export interface AmendmentNewsArgs {
+  to: string;
+  title: string;
+  link: string;
+  actorName: string;
+  what: 'opened' | 'comment' | 'accepted' | 'returned' | 'declined';
+  reason?: string | null;
+  comment?: string | null;
+  revision?: number | null;
+}
+
+/** One line of news (also a digest line). */
+export function amendmentNewsLine(args: Omit<AmendmentNewsArgs, 'to' | 'link'>): string {
+  switch (args.what) {
+    case 'opened':
+      return `${args.actorName} put “${args.title}” in the review queue.`;
+    case 'comment':
+      return `${args.actorName} commented on your amendment “${args.title}”.`;
+    case 'accepted':
+      return `${args.actorName} accepted your amendment “${args.title}”${args.revision ? `: it is library revision ${args.revision}` : ''}.`;
+    case 'returned':
+      return `${args.actorName} returned your amendment “${args.title}” with requests.`;
+    case 'declined':
+      return `${args.actorName} declined your amendment “${args.title}”.`;
+  }
+}
+
+const newsSubjects: Record<AmendmentNewsArgs['what'], (title: string) => string> = {
+  opened: (t) => `Amendment to review: ${t}`,
+  comment: (t) => `New comment on your amendment: ${t}`,
+  accepted: (t) => `Your amendment was accepted: ${t}`,
+  returned: (t) => `Your amendment was returned: ${t}`,
+  declined: (t) => `Your amendment was declined: ${t}`,
+};
+
+export function amendmentNewsMail(args: AmendmentNewsArgs): MailMessage {
+  const quoted = args.comment ?? args.reason ?? null;
+  return {
+    to: args.to,
+    subject: newsSubjects[args.what](args.title),
+    text: [
+      amendmentNewsLine(args),
+      ...(quoted ? ['', ...quoted.split('\n').map((l) => `> ${l}`)] : []),
+      '',
+      'Open the amendment:',
+      args.link,
+      '',
+      'You can choose which of these e-mails you get at once, in a daily digest, or not at all in your account settings.',
+    ].join('\n'),
+  };
+}
+
+/** The daily digest: one line and link per piece of news since the last digest. */
+export function amendmentDigestMail(args: {
+  to: string;
+  items: { line: string; link: string }[];
+  settingsLink: string;
+}): MailMessage {
+  return {
+    to: args.to,
+    subject: `Thermoledger: ${args.items.length} amendment update${args.items.length === 1 ? '' : 's'}`,
+    text: [
+      'What happened to amendments since your last digest:',
+      '',
+      ...args.items.flatMap((item) => [`- ${item.line}`, `  ${item.link}`]),
+      '',
+      `Change how you get these e-mails: ${args.settingsLink}`,
+    ].join('\n'),
+  };
+}

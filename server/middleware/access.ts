@@ -3,11 +3,12 @@ import type { Access } from '@shared/schemas/access';
 import { roleLabels, teamRoleAtLeast } from '@shared/schemas/roles';
 import type { AppDeps } from '../context';
 import { AppError } from '../errors';
-import { teamRoleOf } from '../services/membership.service';
+import { isProposer, teamRoleOf } from '../services/membership.service';
 import { serviceContext } from './service-context';
 
 /**
- * Enforces a route's access level: 401 when nobody is signed in, 403 when the role is missing.
+ * Enforces a route's access level: 401 when nobody is signed in, 403 when the role is missing
+ * (`proposer`: a curator, or a member or team admin of some team).
  * On team routes the caller's role in :teamId is left in res.locals.teamRole.
  */
 export function requireAccess(access: Access, deps: AppDeps): RequestHandler {
@@ -17,6 +18,15 @@ export function requireAccess(access: Access, deps: AppDeps): RequestHandler {
     const principal = res.locals.principal;
     if (!principal) throw new AppError('unauthenticated', 'Sign in first, or send an API token.');
     if (access === 'signed_in') return next();
+    if (access === 'proposer') {
+      if (!(await isProposer(serviceContext(deps, req, res)))) {
+        throw new AppError(
+          'forbidden',
+          'Proposing library changes needs the role Member (or Team admin) in a team, or the site role Curator.',
+        );
+      }
+      return next();
+    }
     if ('site' in access) {
       if (!principal.user.siteRoles.includes(access.site)) {
         throw new AppError('forbidden', `Only a ${roleLabels[access.site].toLowerCase()} may do this.`);

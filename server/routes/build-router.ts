@@ -1,12 +1,15 @@
-import { Router, type Request, type RequestHandler } from 'express';
+import { createReadStream } from 'node:fs';
+import { pipeline } from 'node:stream/promises';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import type { AppDeps } from '../context';
 import { AppError } from '../errors';
-import { FileReply } from '../lib/file-reply';
 import { RawJson } from '../lib/raw-json';
 import { requireAccess } from '../middleware/access';
 import { calcLineBudget, calcRequestLimit } from '../middleware/rate-limit';
 import { serviceContext } from '../middleware/service-context';
 import { validate } from '../middleware/validate';
+import { acceptUpload } from '../middleware/upload';
+import { FileDownload, FileReply } from '../lib/file-reply';
 import { ReplyWithStatus, successStatus, type AnyRoute } from './registry';
 
 function hasBody(req: Request): boolean {
@@ -35,6 +38,23 @@ function measureWork(route: AnyRoute, deps: AppDeps): RequestHandler {
   };
 }
 
+/**
+ * Streams a stored file as a download: never shown inline, never sniffed into another type, and
+ * sandboxed should a browser open it anyway.
+ */
+async function sendAttachment(res: Response, file: FileReply): Promise<void> {
+  res.status(200);
+  res.attachment(file.name);
+  res.type(file.mediaType);
+  res.set({
+    'Content-Length': String(file.size),
+    'X-Content-Type-Options': 'nosniff',
+    'Content-Security-Policy': "default-src 'none'; sandbox",
+    'Cache-Control': 'private, no-store',
+  });
+  await pipeline(createReadStream(file.path), res);
+}
+
 function runHandler(route: AnyRoute, deps: AppDeps): RequestHandler {
   const status = successStatus(route);
   const where = `${route.method.toUpperCase()} ${route.path}`;
@@ -51,8 +71,12 @@ function runHandler(route: AnyRoute, deps: AppDeps): RequestHandler {
     });
     if (res.headersSent) return;
     if (result instanceof FileReply) {
-      // Exports: a file with its own type, downloaded under its name.
-      // attachment() sets a type from the file extension, so our own type goes after it.
+      await sendAttachment(res, result);
+      return;
+    }
+    if (result instanceof FileDownload) {
+      // Exports: a file with its own type, downloaded under its name. attachment() sets a type
+      // from the file extension, so our own type goes after it.
       res.status(status).attachment(result.filename).type(result.contentType).send(result.body);
       return;
     }
@@ -95,7 +119,8 @@ export function buildRouter(routes: readonly AnyRoute[], deps: AppDeps): Router 
     const chain: RequestHandler[] = [];
     if (route.rateLimit === 'calc') chain.push(calcRequestLimit(deps));
     chain.push(requireAccess(route.access, deps));
-    if (route.request?.body) chain.push(requireJsonBody());
+    if (route.upload) chain.push(...acceptUpload(route.upload, deps));
+    else if (route.request?.body) chain.push(requireJsonBody());
     if (route.rateLimit === 'calc') chain.push(measureWork(route, deps));
     chain.push(validate(route.request ?? {}));
     if (route.rateLimit === 'calc') chain.push(calcLineBudget(deps));

@@ -1,13 +1,16 @@
 import { z } from 'zod';
 import { accountRoutes } from './account.routes';
 import { adminRoutes } from './admin.routes';
+import { amendmentRoutes } from './amendments.routes';
 import { balanceRoutes } from './balance.routes';
+import { calorimetryRoutes, calorimetryRunRoutes } from './calorimetry.routes';
 import { deriveRoutes } from './derive.routes';
 import { derivedValueRoutes } from './derived-values.routes';
 import { healthRoutes } from './health.routes';
 import { invitationRoutes } from './invitations.routes';
 import { libraryRoutes } from './library.routes';
 import { noteRoutes } from './notes.routes';
+import { notificationRoutes } from './notifications.routes';
 import { buildOpenApiDocument } from './openapi';
 import { passwordResetRoutes } from './password-resets.routes';
 import { reactionEnthalpyRoutes } from './reaction-enthalpy.routes';
@@ -27,10 +30,14 @@ const resourceRoutes: AnyRoute[] = [
   ...adminRoutes,
   ...balanceRoutes,
   ...libraryRoutes,
+  ...amendmentRoutes,
+  ...notificationRoutes,
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,
   ...reactionSetRoutes,
+  ...calorimetryRoutes,
+  ...calorimetryRunRoutes,
 ];
 
 /** The OpenAPI route describes every route in `routes` plus itself. */

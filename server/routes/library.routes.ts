@@ -5,16 +5,13 @@ import {
   speciesListSchema,
   speciesParamsSchema,
   speciesQuerySchema,
-  libraryImportInputSchema,
-  libraryImportResultSchema,
   sourceListQuerySchema,
   sourceListSchema,
 } from '@shared/schemas/library';
-import { getSpecies, importLibraryFiles, listRevisions, listSources, listSpecies } from '../services/library.service';
-import { requireActor } from '../context';
+import { getSpecies, listRevisions, listSources, listSpecies } from '../services/library.service';
 import { defineRoute } from './registry';
 
-/** Reading the library: public, like the calculations, and rate-limited the same way. */
+/** Reading the library: public, like the calculations, and rate-limited the same way. Changes go through amendments. */
 export const libraryRoutes = [
   defineRoute({
     method: 'get',
@@ -55,23 +52,12 @@ export const libraryRoutes = [
     method: 'get',
     path: '/library/revisions',
     summary: 'Every library revision, newest first',
+    description:
+      'Each revision after the seed was made by accepting an amendment: `amendmentId`, `acceptedBy`, `acceptedAt`, `proposedBy`, `rationale` and `changes` say who, when, why and how much. There is no other way to change the library.',
     tags: ['library'],
     access: 'public',
     rateLimit: 'calc',
     responses: { 200: revisionListSchema },
     handler: ({ ctx }) => listRevisions(ctx, {}),
-  }),
-
-  defineRoute({
-    method: 'post',
-    path: '/library/imports',
-    summary: 'Import library files (seed format) as a new revision',
-    description:
-      'Site admins only, until library changes go through review. Files are CSV/JSON Lines as in seeds/library/FORMAT.md; records match the current library by key and replace what differs. Any problem → 400 naming file, line and column, and nothing is applied.',
-    tags: ['library'],
-    access: { site: 'site_admin' },
-    request: { body: libraryImportInputSchema },
-    responses: { 201: libraryImportResultSchema },
-    handler: ({ ctx, body }) => importLibraryFiles(requireActor(ctx), body),
   }),
 ];

@@ -1,3 +1,4 @@
+import { z } from 'zod';
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
 import { describeAccess } from '@shared/schemas/access';
 import { errorEnvelopeSchema } from '@shared/schemas/errors';
@@ -74,6 +75,18 @@ export function buildOpenApiDocument(routes: readonly AnyRoute[], config: AppCon
         ...(route.request?.query ? { query: route.request.query } : {}),
         ...(route.request?.body
           ? { body: { required: true, content: { 'application/json': { schema: route.request.body } } } }
+          : {}),
+        ...(route.upload
+          ? {
+              body: {
+                required: true,
+                content: {
+                  'multipart/form-data': {
+                    schema: z.object({ [route.upload.field]: z.array(z.string().describe('a file (binary)')) }),
+                  },
+                },
+              },
+            }
           : {}),
       },
       // The generator accepts zod schemas or reference objects here.

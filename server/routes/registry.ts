@@ -5,6 +5,7 @@ import type { Access } from '@shared/schemas/access';
 import type { TeamRole } from '@shared/schemas/roles';
 import type { ServiceContext } from '../context';
 import type { AppConfig } from '../env';
+import type { UploadSpec } from '../middleware/upload';
 
 export { API_PREFIX };
 export type { Access };
@@ -63,6 +64,8 @@ export interface RouteDefinition<
   measureWork?: (body: unknown, config: AppConfig) => number;
   /** The work limits of this route, in words with the configured values, for its OpenAPI description. */
   describeLimits?: (config: AppConfig) => string[];
+  /** A multipart upload of files (read into req.files before the handler; no JSON body). */
+  upload?: UploadSpec;
   /** Returns the reply body (ignored for a body-less success status). */
   handler: (ctx: RouteContext<Parsed<P>, Parsed<Q>, Parsed<B>>) => unknown;
 }

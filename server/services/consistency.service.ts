@@ -3,23 +3,25 @@ import type { ConsistencyInput, ConsistencyResult } from '@shared/schemas/derive
 import type { ServiceContext } from '../context';
 import { AppError, errors } from '../errors';
 import { libraryNetworkOf } from '../library/network';
-import { selectedValue } from '../library/snapshot';
+import { selectedValue, type LibrarySnapshot } from '../library/snapshot';
 import { snapshotFor } from './library.service';
 
 /** Most measurements one fit takes (the fit is a dense solve on the request thread). */
 export const MAX_CONSISTENCY_MEASUREMENTS = 2_000;
 
 /**
- * The curators' consistency check: a generalised least-squares fit of the picked species' ΔfH° to
- * every independent measured reaction that involves them, the other species held at their library
- * values (their uncertainties entering through the covariance of the measurements that share them).
+ * The independent measured reactions of a snapshot that involve any of `fitted`, each with a
+ * stated uncertainty, and the library values of the other species they hold (the measurements
+ * a species missing a ΔfH° would need are left out, with the reason).
  */
-export async function checkConsistency(ctx: ServiceContext, input: ConsistencyInput): Promise<ConsistencyResult> {
-  const snapshot = await snapshotFor(ctx.library, input.revision);
-  const unknown = input.species.filter((key) => !snapshot.speciesByKey.has(key));
-  if (unknown.length > 0)
-    throw errors.validation(['body', 'species'], `Not in the library at this revision: ${unknown.join(', ')}.`);
-  const fitted = new Set(input.species);
+export function measurementsInvolving(
+  snapshot: LibrarySnapshot,
+  fitted: ReadonlySet<string>,
+): {
+  measurements: ConsistencyMeasurement[];
+  held: Map<string, { value: number; uncertainty: number | null }>;
+  excluded: ConsistencyResult['excluded'];
+} {
   const { network, excluded: networkExcluded } = libraryNetworkOf(snapshot);
   const held = new Map<string, { value: number; uncertainty: number | null }>();
   const measurements: ConsistencyMeasurement[] = [];
@@ -55,6 +57,21 @@ export async function checkConsistency(ctx: ServiceContext, input: ConsistencyIn
     });
   }
   for (const e of networkExcluded) excluded.push({ reaction: e.key, reason: e.reason });
+  return { measurements, held, excluded };
+}
+
+/**
+ * The curators' consistency check: a generalised least-squares fit of the picked species' ΔfH° to
+ * every independent measured reaction that involves them, the other species held at their library
+ * values (their uncertainties entering through the covariance of the measurements that share them).
+ */
+export async function checkConsistency(ctx: ServiceContext, input: ConsistencyInput): Promise<ConsistencyResult> {
+  const snapshot = await snapshotFor(ctx.library, input.revision);
+  const unknown = input.species.filter((key) => !snapshot.speciesByKey.has(key));
+  if (unknown.length > 0)
+    throw errors.validation(['body', 'species'], `Not in the library at this revision: ${unknown.join(', ')}.`);
+  const fitted = new Set(input.species);
+  const { measurements, held, excluded } = measurementsInvolving(snapshot, fitted);
   if (measurements.length > MAX_CONSISTENCY_MEASUREMENTS)
     throw new AppError(
       'payload_too_large',

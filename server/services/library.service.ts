@@ -9,12 +9,11 @@ import type {
   SpeciesList,
   SpeciesQuery,
   SpeciesSummary,
-  LibraryImportInput,
-  LibraryImportResult,
   SourceList,
 } from '@shared/schemas/library';
-import type { ActorContext, ServiceContext } from '../context';
+import type { ServiceContext } from '../context';
 import {
+  amendments,
   libraryModels,
   libraryRevisions,
   librarySelections,
@@ -24,10 +23,6 @@ import {
   users,
 } from '../db/tables/index';
 import { AppError, errors } from '../errors';
-import { applyLibrarySet, SetConflictError } from '../library/apply-set';
-import { setRevisionDetail, withNewRevision } from '../library/revisions';
-import { readLibrarySet, type SetProblem } from '../library/seed-set';
-import { recordAudit } from '../db/queries/audit';
 import { presentModel, presentSource, presentValue, sourceOf, summarize } from '../library/present';
 import { elementsOfHill, speciesIndexOf } from '../library/search';
 import type { LibraryCache, LibrarySnapshot, SpeciesEntry } from '../library/snapshot';
@@ -191,6 +186,7 @@ async function historyOf(
           createdAt: libraryRevisions.createdAt,
           summary: libraryRevisions.summary,
           email: libraryRevisions.createdByEmail,
+          amendmentId: libraryRevisions.amendmentId,
         })
         .from(libraryRevisions)
         .where(inArray(libraryRevisions.number, numbers))
@@ -201,6 +197,7 @@ async function historyOf(
     at: r.createdAt.toISOString(),
     by: r.email,
     summary: r.summary,
+    amendmentId: r.amendmentId,
     changes: changes.get(r.number) ?? [],
   }));
 }
@@ -233,83 +230,50 @@ export async function getSpecies(
   };
 }
 
-/** Every library revision, newest first. */
-export async function listRevisions(ctx: ServiceContext, _input: Record<string, never> = {}): Promise<RevisionList> {
-  const rows = await ctx.db
-    .select({ revision: libraryRevisions, email: users.email })
-    .from(libraryRevisions)
-    .leftJoin(users, eq(users.id, libraryRevisions.createdBy))
-    .orderBy(desc(libraryRevisions.number));
-  return {
-    items: rows.map(({ revision: r, email }) => ({
-      number: r.number,
-      kind: r.kind,
-      summary: r.summary,
-      createdAt: r.createdAt.toISOString(),
-      createdBy: email ?? r.createdByEmail,
-      amendmentId: r.amendmentId,
-      detail: r.detail,
-    })),
-    current: rows[0]?.revision.number ?? null,
-  };
+function sumOfCounts(detail: Record<string, unknown>): number {
+  const counts = detail['counts'];
+  if (typeof counts !== 'object' || counts === null) return 0;
+  return Object.values(counts).reduce<number>((sum, n) => sum + (typeof n === 'number' ? n : 0), 0);
 }
 
 /**
- * A site admin's import of library files (seed format): checked as a whole, then applied as one
- * new revision with an audit entry — or, with any problem, refused with every problem named
- * (file, line, column) and nothing written.
+ * Every library revision, newest first: who accepted it and when, the amendment it came from
+ * (its author and rationale), and how many things it changed.
  */
-export async function importLibraryFiles(ctx: ActorContext, input: LibraryImportInput): Promise<LibraryImportResult> {
-  const actor = { id: ctx.actor.user.id, email: ctx.actor.user.email };
-  const { set, problems } = readLibrarySet(input.files, { complete: false });
-  if (problems.length > 0) throw importProblems(problems);
-  try {
-    const { number, result } = await withNewRevision(
-      ctx.db,
-      {
-        kind: 'import',
-        summary: input.summary,
-        actor,
-        detail: { files: input.files.map((f) => f.name) },
-      },
-      async (tx, number) => {
-        const counts = await applyLibrarySet(tx, set, number);
-        if (Object.values(counts).every((n) => n === 0))
-          throw new AppError('unprocessable', 'The files change nothing in the current library: no revision was made.');
-        await setRevisionDetail(tx, number, { files: input.files.map((f) => f.name), counts });
-        await recordAudit(tx, {
-          action: 'library.imported',
-          actor,
-          meta: ctx.meta,
-          detail: { revision: number, counts, files: input.files.map((f) => f.name) },
-        });
-        return counts;
-      },
-    );
-    return { revision: number, counts: result };
-  } catch (error) {
-    if (error instanceof SetConflictError) throw importProblems(error.problems);
-    throw error;
-  }
-}
-
-function importProblems(problems: SetProblem[]): AppError {
-  const shown = problems.slice(0, 200);
-  return new AppError(
-    'validation_failed',
-    `The files were not imported: ${problems.length} problem(s), e.g. ${problems
-      .slice(0, 3)
-      .map((p) => `${p.file} line ${p.line}${p.column ? ` (${p.column})` : ''}: ${p.message}`)
-      .join('; ')}.`,
-    {
-      issues: shown.map((p) => ({
-        path: ['body', 'files', p.file, `line ${p.line}`, ...(p.column ? [p.column] : [])],
-        message: p.message,
-      })),
-      problems: shown,
-      total: problems.length,
-    },
-  );
+export async function listRevisions(ctx: ServiceContext, _input: Record<string, never> = {}): Promise<RevisionList> {
+  const rows = await ctx.db
+    .select({
+      revision: libraryRevisions,
+      email: users.email,
+      name: users.displayName,
+      proposedBy: amendments.authorName,
+      rationale: amendments.rationale,
+    })
+    .from(libraryRevisions)
+    .leftJoin(users, eq(users.id, libraryRevisions.createdBy))
+    .leftJoin(amendments, eq(amendments.id, libraryRevisions.amendmentId))
+    .orderBy(desc(libraryRevisions.number));
+  return {
+    items: rows.map(({ revision: r, email, name, proposedBy, rationale }) => {
+      const accepted = r.kind === 'amendment';
+      return {
+        number: r.number,
+        kind: r.kind,
+        summary: r.summary,
+        createdAt: r.createdAt.toISOString(),
+        createdBy: email ?? r.createdByEmail,
+        amendmentId: r.amendmentId,
+        acceptedBy: accepted ? (name ?? r.createdByEmail) : null,
+        acceptedAt: accepted ? r.createdAt.toISOString() : null,
+        proposedBy: proposedBy ?? null,
+        rationale: rationale ?? null,
+        // The seed records counts only (it touched everything there is).
+        changes: r.touched.length || sumOfCounts(r.detail),
+        detail: r.detail,
+      };
+    }),
+    current: rows[0]?.revision.number ?? null,
+  };
 }
 
 /** Every source at a revision, by key, with how many values, models and reactions cite it. */

@@ -391,6 +391,26 @@ function present(
 }
 
 /**
+ * ΔrH° at 298.15 K of an equation on a given snapshot, with the species keys it resolved to: the
+ * impact of an amendment compares the current library with the one it would make.
+ * @throws the same errors as evaluateReactionEnthalpy (unreadable, unbalanced, unknown species).
+ */
+export function enthalpyOnSnapshot(
+  snapshot: LibrarySnapshot,
+  equation: string,
+): { equation: string; deltaH: number; uncertainty: number; species: string[] } {
+  const reaction = readBalancedReaction(equation);
+  const { resolved } = resolveTerms(snapshot, reaction.terms);
+  const result = evaluate(snapshot, resolved, 298.15, false);
+  return {
+    equation: reaction.equation,
+    deltaH: result.enthalpy,
+    uncertainty: result.uncertainty.standardUncertainty,
+    species: resolved.map((t) => t.species.key),
+  };
+}
+
+/**
  * ΔrH° of an equation from the library at 298.15 K or at T (Kirchhoff), with ΔrU°, and ΔrS°,
  * ΔrG° and K where every species has S°. Per mole of reaction as written in the returned equation.
  */

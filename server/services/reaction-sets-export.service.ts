@@ -1,7 +1,7 @@
 import { SET_EXPORT_FORMAT, type SetExport } from '@shared/schemas/reaction-sets';
 import type { ServiceContext } from '../context';
 import type { ReactionSetRow } from '../db/tables/index';
-import { FileReply } from '../lib/file-reply';
+import { FileDownload } from '../lib/file-reply';
 import { setBibtex } from '../reports/bibtex';
 import { setCsv } from '../reports/set-csv';
 import { setPdf } from '../reports/set-pdf';
@@ -57,11 +57,11 @@ function cachedPdf(key: string, make: () => Promise<Buffer>): Promise<Buffer> {
   return pdf;
 }
 
-async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFormat): Promise<FileReply> {
+async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFormat): Promise<FileDownload> {
   const evaluation = await evaluationOfSet(ctx, set);
   const state = stateOf(set);
   const name = exportFileName(set.title, set.version, format);
-  const file = (body: Buffer | string) => new FileReply(CONTENT_TYPES[format], name, body);
+  const file = (body: Buffer | string) => new FileDownload(CONTENT_TYPES[format], name, body);
   switch (format) {
     case 'csv':
       // A byte-order mark, so spreadsheet programs read the file as UTF-8 (Δ, →, −).
@@ -91,7 +91,7 @@ async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFo
 export async function exportTeamSet(
   ctx: ServiceContext,
   input: { teamId: string; setId: string; format: ExportFormat },
-): Promise<FileReply> {
+): Promise<FileDownload> {
   const set = await findSet(ctx.db, input.teamId, input.setId);
   if (input.format === 'pdf') await weighSetWork(ctx, set);
   return fileOf(ctx, set, input.format);
@@ -101,7 +101,7 @@ export async function exportTeamSet(
 export async function exportSharedSet(
   ctx: ServiceContext,
   input: { token: string; format: ExportFormat },
-): Promise<FileReply> {
+): Promise<FileDownload> {
   const { set } = await resolveShareToken(ctx, input.token);
   await weighSetWork(ctx, set);
   return fileOf(ctx, set, input.format);

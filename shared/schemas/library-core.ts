@@ -51,6 +51,19 @@ export const revisionKinds = ['seed', 'import', 'amendment'] as const;
 export const revisionKindSchema = z.enum(revisionKinds);
 export type RevisionKind = z.infer<typeof revisionKindSchema>;
 
+/** How a measured reaction's ΔrH was obtained (reactions-*.csv `method`, amendment entries). */
+export const reactionMethods = [
+  'combustion-calorimetry',
+  'solution-calorimetry',
+  'reaction-calorimetry',
+  'equilibrium',
+  'phase-change',
+  'computed',
+  'other',
+] as const;
+export const reactionMethodSchema = z.enum(reactionMethods);
+export type ReactionMethod = z.infer<typeof reactionMethodSchema>;
+
 /** `formation`: H from the model is on the ΔfH scale (NASA polynomials); `relative`: only H(T) − H(298.15 K). */
 export const modelScales = ['formation', 'relative'] as const;
 export const modelScaleSchema = z.enum(modelScales);

@@ -11,7 +11,8 @@ import {
 } from './library-core';
 
 /**
- * The library API (GET /api/v1/species, /species/:id, /library/revisions): public and stable.
+ * The library API (GET /api/v1/species, /species/:id, /sources, /library/revisions): public and
+ * stable. The library changes only through amendments (shared/schemas/amendments.ts).
  * Energies are kJ/mol, entropies J/(mol K); uncertainties are standard uncertainties (k = 1),
  * null when the source states none.
  */
@@ -186,6 +187,8 @@ export const historyEntrySchema = z.object({
   at: z.iso.datetime({ offset: true }),
   by: z.string().nullable(),
   summary: z.string(),
+  /** The amendment whose acceptance made the revision (null for the seed). */
+  amendmentId: z.uuid().nullable(),
   /** What changed for this species in that revision, in words. */
   changes: z.array(z.string()),
 });
@@ -215,45 +218,28 @@ export const speciesCurvesSchema = z.object({
 export const revisionSchema = z.object({
   number: z.number().int(),
   kind: revisionKindSchema,
+  /** The amendment's title (or the seed's description). */
   summary: z.string(),
   createdAt: z.iso.datetime({ offset: true }),
+  /** E-mail of who made it (the accepting curator), kept when the account is removed. */
   createdBy: z.string().nullable(),
-  /** The amendment that made it, once amendments exist. */
+  /** The amendment whose acceptance made it (null for the seed). */
   amendmentId: z.uuid().nullable(),
+  /** Display name of the curator who accepted the amendment. */
+  acceptedBy: z.string().nullable(),
+  acceptedAt: z.iso.datetime({ offset: true }).nullable(),
+  /** Who proposed the amendment, and why. */
+  proposedBy: z.string().nullable(),
+  rationale: z.string().nullable(),
+  /** How many things it changed (identities touched). */
+  changes: z.number().int(),
+  /** Counts by kind (sources, species, values, models, selections, reactions, deprecated) and more. */
   detail: z.record(z.string(), z.unknown()),
 });
 export type Revision = z.infer<typeof revisionSchema>;
 
 export const revisionListSchema = z.object({ items: z.array(revisionSchema), current: z.number().int().nullable() });
 export type RevisionList = z.infer<typeof revisionListSchema>;
-
-/** POST /api/v1/library/imports: library files in the seed format (seeds/library/FORMAT.md). */
-export const libraryImportInputSchema = z.object({
-  summary: z.string().trim().min(3, 'Say in a few words what this import changes.').max(500),
-  files: z
-    .array(
-      z.object({
-        name: z.string().min(1).max(200),
-        text: z.string().max(1_000_000, 'A file may hold up to 1,000,000 characters; split larger imports.'),
-      }),
-    )
-    .min(1, 'Send at least one file.')
-    .max(50),
-});
-export type LibraryImportInput = z.infer<typeof libraryImportInputSchema>;
-
-export const libraryImportResultSchema = z.object({
-  revision: z.number().int(),
-  counts: z.object({
-    sources: z.number().int(),
-    species: z.number().int(),
-    values: z.number().int(),
-    models: z.number().int(),
-    selections: z.number().int(),
-    reactions: z.number().int(),
-  }),
-});
-export type LibraryImportResult = z.infer<typeof libraryImportResultSchema>;
 
 /** GET /api/v1/sources: every source of the library at a revision, with how many values cite it. */
 export const sourceListSchema = z.object({

@@ -27,10 +27,28 @@ export const routes: RouteRecordRaw[] = [
     meta: { access: 'public', title: 'Library' },
   },
   {
+    path: '/library/consistency',
+    name: 'library-consistency',
+    component: () => import('@/views/ConsistencyView.vue'),
+    meta: { access: { site: 'curator' }, title: 'Consistency check' },
+  },
+  {
+    path: '/derive',
+    name: 'derive',
+    component: () => import('@/views/DeriveView.vue'),
+    meta: { access: 'public', title: 'Derive' },
+  },
+  {
     path: '/library/species/:speciesId',
     name: 'library-species',
     component: () => import('@/views/SpeciesView.vue'),
     meta: { access: 'public', title: 'Species' },
+  },
+  {
+    path: '/calorimetry',
+    name: 'calorimetry',
+    component: () => import('@/views/CalorimetryView.vue'),
+    meta: { access: 'public', title: 'Calorimetry' },
   },
   {
     path: '/sign-in',
@@ -62,6 +80,12 @@ export const routes: RouteRecordRaw[] = [
     name: 'team-notes',
     component: () => import('@/views/TeamNotesView.vue'),
     meta: { access: { team: 'viewer' }, title: 'Team notes' },
+  },
+  {
+    path: '/teams/:teamId/derived',
+    name: 'team-derived',
+    component: () => import('@/views/TeamDerivedValuesView.vue'),
+    meta: { access: { team: 'viewer' }, title: 'Derived values' },
   },
   {
     path: '/teams/:teamId/members',

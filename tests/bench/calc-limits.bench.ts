@@ -6,8 +6,10 @@
 // commit for it (a close upper estimate of the request's peak heap), printed after the run.
 import { Worker } from 'node:worker_threads';
 import { afterAll, bench, describe } from 'vitest';
+import { MAX_SERIES_POINTS } from '@shared/schemas/calorimetry';
 import { configFromEnv, readEnv } from '../../server/env';
 import { startTestApp } from '../server/helpers';
+import { newtonianReadings } from '../shared/chemistry/calorimetry/support';
 
 const limits = configFromEnv(readEnv({})).calc.limits;
 const alkane = (n: number) => (n === 1 ? 'CH4' : `C${n}H${2 * n + 2}`);
@@ -27,6 +29,27 @@ const maxBytesHeavy = Array<string>(Math.floor(limits.maxBatchBytes / (maxSpecie
   .fill(maxSpecies)
   .join('\n');
 
+// A constant-pressure run with one series at the per-series limit (a reading a second), corrected by
+// Regnault–Pfaundler, the method that integrates over every reading of the main period.
+const longSeries = newtonianReadings({
+  k: 1e-4,
+  convergence: 295.05,
+  start: 294,
+  rise: 3,
+  release: 0.002,
+  mixingTime: 1000,
+  step: 1,
+  end: MAX_SERIES_POINTS - 1,
+});
+const maxSeries = {
+  solution: { mass: { value: 200, unit: 'g', uncertainty: 0.01 } },
+  temperature: { series: longSeries, unit: 'K', mixingTime: 1000, method: 'regnault-pfaundler' },
+  reaction: {
+    equation: 'HCl(aq) + NaOH(aq) -> NaCl(aq) + H2O(l)',
+    limiting: { term: 0, amount: { value: 0.05, unit: 'mol' } },
+  },
+};
+
 const cases = {
   'POST /balance, 80 terms': { path: '/balance', body: { equation: maxTerms } },
   'POST /balance, 60 species': { path: '/balance', body: { equation: maxSpecies } },
@@ -34,6 +57,10 @@ const cases = {
   [`POST /balance/batch, ${maxBytesHeavy.split('\n').length} lines of 60 species (200 kB)`]: {
     path: '/balance/batch',
     body: { text: maxBytesHeavy },
+  },
+  [`POST /calorimetry/constant-pressure, ${MAX_SERIES_POINTS.toLocaleString('en')} readings`]: {
+    path: '/calorimetry/constant-pressure',
+    body: maxSeries,
   },
 } as const;
 
@@ -47,7 +74,9 @@ afterAll(async () => {
     const task =
       c.path === '/balance'
         ? { kind: 'balance', input: c.body, limits }
-        : { kind: 'batch', text: (c.body as { text: string }).text, limits };
+        : c.path === '/calorimetry/constant-pressure'
+          ? { kind: 'constant-pressure', input: c.body, limits }
+          : { kind: 'batch', text: (c.body as { text: string }).text, limits };
     const stats = await new Promise<Record<string, unknown>>((resolve, reject) => {
       const worker = new Worker(new URL('./heap-probe.mjs', import.meta.url), {
         workerData: { task },

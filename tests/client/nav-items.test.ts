@@ -8,8 +8,13 @@ const keys = (session: SessionInfo, current: string | null) =>
   visibleNavItems(navItems, session, current).map((i) => i.key);
 
 describe('visibleNavItems', () => {
-  it('shows only the public areas (workbench, library) to anonymous visitors', () => {
-    expect(keys({ user: null, teams: [], via: 'none' }, null)).toEqual(['workbench', 'library']);
+  it('shows only the public areas (workbench, library, derive, calorimetry) to anonymous visitors', () => {
+    expect(keys({ user: null, teams: [], via: 'none' }, null)).toEqual([
+      'workbench',
+      'library',
+      'derive',
+      'calorimetry',
+    ]);
   });
 
   it('shows team areas to a viewer, linked to the current team, but no Admin', () => {
@@ -19,14 +24,22 @@ describe('visibleNavItems', () => {
       via: 'session',
     };
     const items = visibleNavItems(navItems, viewer, team);
-    expect(items.map((i) => i.key)).toEqual(['workbench', 'library', 'sets', 'notes', 'members']);
+    expect(items.map((i) => i.key)).toEqual([
+      'workbench',
+      'library',
+      'derive',
+      'calorimetry',
+      'sets',
+      'notes',
+      'members',
+    ]);
     expect(items.find((i) => i.key === 'notes')?.params).toEqual({ teamId: team });
     expect(items.find((i) => i.key === 'workbench')?.params).toEqual({});
   });
 
   it('shows Admin to a site admin without teams, and no team areas', () => {
     const admin: SessionInfo = { user: { ...person, siteRoles: ['site_admin'] }, teams: [], via: 'session' };
-    expect(keys(admin, null)).toEqual(['workbench', 'library', 'admin']);
+    expect(keys(admin, null)).toEqual(['workbench', 'library', 'derive', 'calorimetry', 'admin']);
   });
 
   it('hides Admin from a curator', () => {
@@ -35,7 +48,7 @@ describe('visibleNavItems', () => {
       teams: [{ id: team, name: 'T', slug: 't', role: 'member' }],
       via: 'session',
     };
-    expect(keys(curator, team)).toEqual(['workbench', 'library', 'sets', 'notes', 'members']);
+    expect(keys(curator, team)).toEqual(['workbench', 'library', 'derive', 'calorimetry', 'sets', 'notes', 'members']);
   });
 
   it('drops team areas when the current team is not one of the user’s', () => {
@@ -44,6 +57,11 @@ describe('visibleNavItems', () => {
       teams: [{ id: team, name: 'T', slug: 't', role: 'viewer' }],
       via: 'session',
     };
-    expect(keys(viewer, '99999999-9999-4999-8999-999999999999')).toEqual(['workbench', 'library']);
+    expect(keys(viewer, '99999999-9999-4999-8999-999999999999')).toEqual([
+      'workbench',
+      'library',
+      'derive',
+      'calorimetry',
+    ]);
   });
 });

@@ -64,6 +64,35 @@ const sets: Step = {
     await page.getByText(/set\(s\)/).waitFor();
   },
 };
+const deriveGiven: Step = {
+  name: 'derive, a result from given reactions',
+  open: async (page) => {
+    const query = new URLSearchParams({ t: 'C(cr, graphite) + 1/2 O2(g) -> CO(g)', from: 'given' });
+    query.append('r', 'C(cr, graphite) + O2(g) -> CO2(g) ; -393.5 ; 0.1');
+    query.append('r', 'CO(g) + 1/2 O2(g) -> CO2(g) ; -283.0');
+    await page.goto(`/derive?${query}`);
+    await page.getByTestId('level-diagram').waitFor();
+  },
+};
+const teamDerivedValues: Step = {
+  name: "team's derived values",
+  open: async (page) => {
+    await page.goto('/derive');
+    await page.getByTestId('derive-team-values-link').click();
+    await page.waitForURL(/\/teams\/[^/]+\/derived$/);
+    await page
+      .getByText(/No derived values yet|Derived ΔfH°/)
+      .first()
+      .waitFor();
+  },
+};
+const consistency: Step = {
+  name: 'consistency check (curators)',
+  open: async (page) => {
+    await page.goto('/library/consistency');
+    await page.getByTestId('consistency-run').waitFor();
+  },
+};
 const adminPage = (path: string, name: string, ready: (page: Page) => Promise<void>): Step => ({
   name,
   open: async (page) => {
@@ -76,6 +105,7 @@ const adminPage = (path: string, name: string, ready: (page: Page) => Promise<vo
 const walks: Record<Role | 'anonymous', Step[]> = {
   anonymous: [
     workbenchBalanced,
+    deriveGiven,
     {
       name: 'sign-in',
       open: async (page) => {
@@ -122,6 +152,7 @@ const walks: Record<Role | 'anonymous', Step[]> = {
   viewer: [
     workbenchBalanced,
     account,
+    teamDerivedValues,
     notes,
     members,
     sets,
@@ -133,9 +164,9 @@ const walks: Record<Role | 'anonymous', Step[]> = {
       },
     },
   ],
-  member: [workbenchBalanced, account, notes, noteComposer, members, sets],
+  member: [workbenchBalanced, account, notes, noteComposer, members, deriveGiven, teamDerivedValues, sets],
   teamAdmin: [workbenchBalanced, notes, members, sets],
-  curator: [workbenchBalanced, account, notes, members],
+  curator: [workbenchBalanced, account, notes, members, consistency],
   siteAdmin: [
     workbenchBalanced,
     account,

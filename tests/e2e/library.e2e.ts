@@ -137,6 +137,7 @@ describe('library and reaction enthalpy (signed out)', () => {
 
   it('offers the library phases of a species written without one and rewrites it when chosen', async () => {
     const { page } = browser;
+    await page.goto('/');
     await page.locator('[data-testid="equation-input"] input').fill('H2(g) + 1/2 O2(g) -> H2O');
     await page.getByTestId('enthalpy-problems').waitFor();
     await page.getByTestId('species-suggestion').filter({ hasText: 'H2O(l)' }).click();

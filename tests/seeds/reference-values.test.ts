@@ -166,6 +166,8 @@ describe('species-extra.csv', () => {
       'Sn(cr)',
       'Th(cr)',
       'U(cr)',
+      'Co(cr)',
+      'Mn(cr)',
     ]);
     expect(speciesExtra.filter((r) => (r.name ?? '').trim() === '').map((r) => r.key)).toEqual([]);
   });

@@ -62,7 +62,25 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/species/:speciesId': 'public',
   'GET /api/v1/library/revisions': 'public',
   'GET /api/v1/sources': 'public',
-  'POST /api/v1/library/imports': { site: 'site_admin' },
+  'GET /api/v1/amendments': 'signed_in',
+  'GET /api/v1/amendments/counts': 'signed_in',
+  'POST /api/v1/amendments': 'proposer',
+  'GET /api/v1/amendments/:amendmentId': 'signed_in',
+  'PUT /api/v1/amendments/:amendmentId': 'proposer',
+  'POST /api/v1/amendments/:amendmentId/open': 'proposer',
+  'POST /api/v1/amendments/:amendmentId/accept': { site: 'curator' },
+  'POST /api/v1/amendments/:amendmentId/return': { site: 'curator' },
+  'POST /api/v1/amendments/:amendmentId/decline': { site: 'curator' },
+  'POST /api/v1/amendments/:amendmentId/withdraw': 'proposer',
+  'POST /api/v1/amendments/:amendmentId/rebase': 'proposer',
+  'POST /api/v1/amendments/:amendmentId/revert': 'proposer',
+  'POST /api/v1/amendments/:amendmentId/comments': 'proposer',
+  'GET /api/v1/account/notifications': 'signed_in',
+  'PATCH /api/v1/account/notifications': 'signed_in',
+  'GET /api/v1/amendments/:amendmentId/files': 'signed_in',
+  'POST /api/v1/amendments/:amendmentId/files': 'proposer',
+  'GET /api/v1/amendments/:amendmentId/files/:fileId': 'signed_in',
+  'DELETE /api/v1/amendments/:amendmentId/files/:fileId': 'proposer',
   'POST /api/v1/reaction-enthalpy': 'public',
   'POST /api/v1/reaction-heat': 'public',
   'POST /api/v1/derive': 'public',
@@ -96,6 +114,13 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/shared/:token/export.bib': 'public',
   'GET /api/v1/shared/:token/export.pdf': 'public',
   'POST /api/v1/shared/:token/copy': 'signed_in',
+  'POST /api/v1/calorimetry/constant-pressure': 'public',
+  'POST /api/v1/calorimetry/bomb': 'public',
+  'GET /api/v1/teams/:teamId/calorimetry/runs': { team: 'viewer' },
+  'POST /api/v1/teams/:teamId/calorimetry/runs': { team: 'member' },
+  'GET /api/v1/teams/:teamId/calorimetry/runs/:runId': { team: 'viewer' },
+  'PATCH /api/v1/teams/:teamId/calorimetry/runs/:runId': { team: 'member' },
+  'DELETE /api/v1/teams/:teamId/calorimetry/runs/:runId': { team: 'member' },
   'GET /api/v1/test/curator-probe': { site: 'curator' },
 };
 
@@ -105,22 +130,26 @@ interface Caller {
   signedIn: boolean;
   kestrelRole: TeamRole | null;
   siteRoles: SiteRole[];
+  /** Member or team admin of some team (any team, not only kestrel-bay). */
+  proposesInSomeTeam: boolean;
 }
 const callers: Caller[] = [
-  { name: 'anonymous', signedIn: false, kestrelRole: null, siteRoles: [] },
-  { name: 'viewer', signedIn: true, kestrelRole: 'viewer', siteRoles: [] },
-  { name: 'member', signedIn: true, kestrelRole: 'member', siteRoles: [] },
-  { name: 'team_admin', signedIn: true, kestrelRole: 'team_admin', siteRoles: [] },
-  { name: 'curator', signedIn: true, kestrelRole: 'member', siteRoles: ['curator'] },
-  { name: 'site_admin', signedIn: true, kestrelRole: null, siteRoles: ['site_admin'] },
-  { name: 'other_team', signedIn: true, kestrelRole: null, siteRoles: [] },
-  { name: 'member_token', signedIn: true, kestrelRole: 'member', siteRoles: [] },
+  { name: 'anonymous', signedIn: false, kestrelRole: null, siteRoles: [], proposesInSomeTeam: false },
+  { name: 'viewer', signedIn: true, kestrelRole: 'viewer', siteRoles: [], proposesInSomeTeam: false },
+  { name: 'member', signedIn: true, kestrelRole: 'member', siteRoles: [], proposesInSomeTeam: true },
+  { name: 'team_admin', signedIn: true, kestrelRole: 'team_admin', siteRoles: [], proposesInSomeTeam: true },
+  { name: 'curator', signedIn: true, kestrelRole: 'member', siteRoles: ['curator'], proposesInSomeTeam: true },
+  { name: 'site_admin', signedIn: true, kestrelRole: null, siteRoles: ['site_admin'], proposesInSomeTeam: false },
+  // Team admin of larchmont: a proposer through another team.
+  { name: 'other_team', signedIn: true, kestrelRole: null, siteRoles: [], proposesInSomeTeam: true },
+  { name: 'member_token', signedIn: true, kestrelRole: 'member', siteRoles: [], proposesInSomeTeam: true },
 ];
 
 function mayCall(access: Access, caller: Caller): boolean {
   if (access === 'public') return true;
   if (!caller.signedIn) return false;
   if (access === 'signed_in') return true;
+  if (access === 'proposer') return caller.proposesInSomeTeam || caller.siteRoles.includes('curator');
   if ('site' in access) return caller.siteRoles.includes(access.site);
   return caller.kestrelRole !== null && teamRoleAtLeast(caller.kestrelRole, access.team);
 }
@@ -141,7 +170,9 @@ function urlFor(route: AnyRoute): string {
     .replace(':teamId', t.ids.teams.kestrel)
     .replace(':token', 'x'.repeat(43))
     .replace(':version', '1')
-    .replace(/:(userId|noteId|invitationId|tokenId|setId|linkId|valueId)/g, () => randomUUID());
+    .replace(/:(userId|noteId|invitationId|tokenId|setId|linkId|valueId|amendmentId|fileId|runId)/g, () =>
+      randomUUID(),
+    );
   return `/api/v1${path}`;
 }
 

@@ -221,3 +221,22 @@ describe('a long calculation does not hold up other requests', () => {
     expect((await request(t.url).get('/api/v1/health')).status).toBe(200);
   });
 });
+
+describe('work limits of POST /api/v1/calorimetry/*', () => {
+  it('answers readings over the per-request limit with 413 before parsing, naming the limit and the count', async () => {
+    const series = Array.from({ length: 7000 }, (_, i) => [i, 295]);
+    const run = {
+      mass: { value: 1, unit: 'g' },
+      temperature: { series, unit: 'K', mixingTime: 10, method: 'dickinson' },
+    };
+    const res = await request(t.url)
+      .post('/api/v1/calorimetry/bomb')
+      .send({
+        sample: { formula: 'C10H8', phase: 'cr' },
+        energyEquivalent: { value: 1, unit: 'J/K' },
+        runs: [run, run, run],
+      });
+    expect(res.status).toBe(413);
+    expect(res.body.error.details).toEqual({ limit: 'seriesReadings', max: 20_000, found: 21_000 });
+  });
+});

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedLibrary } from '../../server/library/seed-library';
 import { startTestApp, type TestApp } from './helpers';
+import { acceptEntries } from './amendment-helpers';
 
 let t: TestApp;
 
@@ -174,27 +175,28 @@ describe('POST /api/v1/library/consistency', () => {
     // Two measurements of ethylene hydrogenation made up for this test from the library's own
     // values: one exact, one 30 kJ/mol off. The fit must flag the second (a check of the mechanics;
     // the mathematics is checked against textbook formulas in tests/shared/chemistry/hess).
-    const admin = await t.signIn('site_admin');
     const dfH = async (key: string) => {
       const list = await t.anon().get('/api/v1/species').query({ q: key, limit: 50 });
       return (list.body.items as { key: string; deltaFH: { value: number } }[]).find((i) => i.key === key)!.deltaFH
         .value;
     };
     const exact = (await dfH('C2H6(g)')) - (await dfH('C2H4(g)'));
-    const header =
-      'key,equation,delta_h,unit,uncertainty_kind,uncertainty,k,temperature,method,molality,source,table,independent,provenance,note';
-    const row = (key: string, value: number) =>
-      `${key},C2H4(g) + H2(g) -> C2H6(g),${value.toFixed(3)},kJ/mol,standard,0.5,,298.15,reaction-calorimetry,,kistiakowsky-1935a,,yes,entered,test row`;
-    const imported = await admin.post('/api/v1/library/imports').send({
-      summary: 'Test: two hydrogenation measurements',
-      files: [
-        {
-          name: 'reactions-test.csv',
-          text: [header, row('test-h-1', exact), row('test-h-2', exact + 30), row('test-h-3', exact + 0.2)].join('\n'),
-        },
-      ],
+    const reaction = (key: string, value: number) => ({
+      kind: 'add-reaction',
+      key,
+      equation: 'C2H4(g) + H2(g) -> C2H6(g)',
+      deltaH: { value: Number(value.toFixed(3)), uncertainty: 0.5 },
+      method: 'reaction-calorimetry',
+      independent: true,
+      source: { key: 'kistiakowsky-1935a' },
+      provenance: 'entered',
+      note: 'test row',
     });
-    expect(imported.status).toBe(201);
+    await acceptEntries(
+      t,
+      [reaction('test-h-1', exact), reaction('test-h-2', exact + 30), reaction('test-h-3', exact + 0.2)],
+      'Test: two hydrogenation measurements',
+    );
     const curator = await t.signIn('curator');
     const res = await curator.post('/api/v1/library/consistency').send({ species: ['C2H6(g)'] });
     expect(res.status).toBe(200);

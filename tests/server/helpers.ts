@@ -1,6 +1,8 @@
 import { inject } from 'vitest';
 import { randomBytes } from 'node:crypto';
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { sql } from 'drizzle-orm';
@@ -46,7 +48,9 @@ export function testConfig(overrides: DeepPartial<AppConfig> = {}): AppConfig {
   const defaults = configFromEnv(
     readEnv({ NODE_ENV: 'test', PUBLIC_URL: 'http://thermoledger.test', CALC_WORKERS: '2' }),
   );
-  return merge({ ...defaults, logLevel: 'silent', version: 'test' }, overrides);
+  // Evidence files of each test app go to a throwaway directory, never into the worktree's ./data.
+  const evidence = { ...defaults.evidence, dir: mkdtempSync(path.join(os.tmpdir(), 'tl-evidence-')) };
+  return merge({ ...defaults, evidence, logLevel: 'silent', version: 'test' }, overrides);
 }
 
 /**
@@ -162,7 +166,7 @@ export interface TestApp {
 }
 
 const TABLES =
-  'reaction_set_links, reaction_set_versions, reaction_sets, audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
+  'reaction_set_links, reaction_set_versions, reaction_sets, digest_items, notification_settings, amendment_files, amendment_comments, amendment_events, amendment_entries, amendments, calorimetry_runs, audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
 
 async function readIds(open: OpenDatabase): Promise<DemoIds> {
   const { teams, users } = await import('../../server/db/tables/index');

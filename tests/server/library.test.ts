@@ -3,6 +3,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedLibrary } from '../../server/library/seed-library';
 import { startTestApp, type TestApp } from './helpers';
+import { acceptEntries } from './amendment-helpers';
 
 let t: TestApp;
 
@@ -329,20 +330,20 @@ describe('revisions', () => {
     const equation = 'C(s) + O2(g) -> CO2(g)';
     const before = await t.anon().post('/api/v1/reaction-enthalpy').send({ equation });
     const revision = before.body.libraryRevision as number;
-    const admin = await t.signIn('site_admin');
-    const imported = await admin.post('/api/v1/library/imports').send({
-      summary: 'Test: a revised CO2 value',
-      files: [
+    const accepted = await acceptEntries(
+      t,
+      [
         {
-          name: 'values-test.csv',
-          text:
-            'species,property,value,unit,uncertainty_kind,uncertainty,k,source,table,entry_note,provenance,pressure_bar,ion_convention,note\n' +
-            'CO2(g),dfH298,-393.00,kJ/mol,standard,0.10,,codata-1989,,,entered,1,,test value\n',
+          kind: 'revise-value',
+          species: 'CO2(g)',
+          deltaFH: { value: -393.0, uncertainty: 0.1 },
+          source: { key: 'codata-1989' },
+          provenance: 'entered',
         },
       ],
-    });
-    expect(imported.status).toBe(201);
-    expect(imported.body.revision).toBe(revision + 1);
+      'Test: a revised CO2 value',
+    );
+    expect(accepted.revision).toBe(revision + 1);
     const after = await t.anon().post('/api/v1/reaction-enthalpy').send({ equation });
     expect(after.body.libraryRevision).toBe(revision + 1);
     expect(after.body.deltaH.value).toBeCloseTo(-393.0, 6);
@@ -354,32 +355,45 @@ describe('revisions', () => {
     expect(revisions.body.items[0].summary).toBe('Test: a revised CO2 value');
   });
 
-  it('refuses an import with a bad row, naming file, line and column, and makes no revision', async () => {
-    const admin = await t.signIn('site_admin');
+  it('refuses an amendment with a bad entry, naming entry and field, and makes no revision', async () => {
+    const member = await t.signIn('member');
     const before = await t.anon().get('/api/v1/library/revisions');
-    const res = await admin.post('/api/v1/library/imports').send({
-      summary: 'Test: a bad file',
-      files: [
+    const res = await member.post('/api/v1/amendments').send({
+      title: 'Test: a bad entry',
+      rationale: 'A test.',
+      entries: [
         {
-          name: 'values-bad.csv',
-          text:
-            'species,property,value,unit,uncertainty_kind,uncertainty,k,source,table,entry_note,provenance,pressure_bar,ion_convention,note\n' +
-            'CO2(g),dfH298,-393.00,kJ/mol,standard,0.10,,codata-1989,,,entered,1,,fine\n' +
-            'CO2(g),dfH298,abc,kJ/mol,standard,0.10,,nasa-tm4513,,,entered,1,,bad\n',
+          kind: 'revise-value',
+          species: 'CO2(g)',
+          deltaFH: { value: -393.0, uncertainty: 0.1 },
+          source: { key: 'codata-1989' },
+        },
+        {
+          kind: 'revise-value',
+          species: 'CO2(g)',
+          deltaFH: { value: 'abc', uncertainty: 0.1 },
+          source: { key: 'codata-1989' },
         },
       ],
     });
     expect(res.status).toBe(400);
-    expect(res.body.error.details.problems[0]).toMatchObject({ file: 'values-bad.csv', line: 3, column: 'value' });
+    expect(res.body.error.details.issues[0].path).toEqual(['body', 'entries', 1, 'deltaFH', 'value']);
     const after = await t.anon().get('/api/v1/library/revisions');
     expect(after.body.current).toBe(before.body.current);
   });
 
-  it('lets only a site admin import', async () => {
-    const member = await t.signIn('member');
-    const res = await member
+  it('has no direct import: even a site admin changes the library only through an amendment', async () => {
+    const admin = await t.signIn('site_admin');
+    const res = await admin
       .post('/api/v1/library/imports')
       .send({ summary: 'nope', files: [{ name: 'x.csv', text: '' }] });
-    expect(res.status).toBe(403);
+    expect(res.status).toBe(404);
+    // A site admin in no team is not a proposer either.
+    const proposed = await admin.post('/api/v1/amendments').send({
+      title: 'nope',
+      rationale: 'nope',
+      entries: [{ kind: 'deprecate', target: 'species', id: crypto.randomUUID(), reason: 'x' }],
+    });
+    expect(proposed.status).toBe(403);
   });
 });

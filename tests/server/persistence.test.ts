@@ -44,7 +44,8 @@ describe('PGlite on disk', () => {
     } finally {
       await second.close();
     }
-  });
+    // Two on-disk databases opened and migrated: slow on a busy machine, so a generous limit.
+  }, 180_000);
 });
 
 /** Starts the real server (node + tsx, no wrapper process) on `dataDir`; resolves with its base URL. */

@@ -24,7 +24,8 @@ export type AuditAction =
   | 'user.disabled'
   | 'user.enabled'
   | 'team.created'
-  | 'library.imported';
+  | 'library.imported'
+  | 'library.amendment_accepted';
 
 export interface AuditEntry {
   action: AuditAction;

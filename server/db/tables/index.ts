@@ -11,3 +11,6 @@ export * from './notes';
 export * from './library';
 export * from './derived-values';
 export * from './reaction-sets';
+export * from './amendments';
+export * from './notifications';
+export * from './calorimetry-runs';

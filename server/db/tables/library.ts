@@ -50,10 +50,16 @@ export const libraryRevisions = pgTable('library_revisions', {
   createdBy: uuid('created_by'),
   /** The e-mail of the person, kept when the account is removed. */
   createdByEmail: text('created_by_email'),
-  /** The amendment whose acceptance made this revision, once amendments exist. */
+  /** The amendment whose acceptance made this revision. */
   amendmentId: uuid('amendment_id'),
-  /** What the change held (counts per kind, file name of an import…). */
+  /** What the change held (counts per kind, the seed's file names…). */
   detail: jsonb('detail').$type<Record<string, unknown>>().notNull().default({}),
+  /**
+   * Identities of everything this revision changed ("value:CO2(g)|dfH298|codata-1989",
+   * "selection:CO2(g)|dfH298", "species:…", "model:…", "reaction:…", "source:…"). An amendment
+   * based on an earlier revision conflicts with this one when it changes any of them.
+   */
+  touched: jsonb('touched').$type<string[]>().notNull().default([]),
 });
 
 /** Published sources values come from. */

@@ -17,6 +17,8 @@ export interface NavItem {
 export const navItems: readonly NavItem[] = [
   { key: 'workbench', label: 'Workbench', routeName: 'workbench', access: 'public' },
   { key: 'library', label: 'Library', routeName: 'library', access: 'public' },
+  { key: 'derive', label: 'Derive', routeName: 'derive', access: 'public' },
+  { key: 'calorimetry', label: 'Calorimetry', routeName: 'calorimetry', access: 'public' },
   { key: 'sets', label: 'Sets', routeName: 'team-sets', access: { team: 'viewer' } },
   { key: 'notes', label: 'Team notes', routeName: 'team-notes', access: { team: 'viewer' } },
   { key: 'members', label: 'Members', routeName: 'team-members', access: { team: 'viewer' } },

@@ -1,0 +1,245 @@
+import {
+  amendmentCommentInputSchema,
+  amendmentCommentSchema,
+  amendmentCountsSchema,
+  amendmentDetailSchema,
+  amendmentInputSchema,
+  amendmentListQuerySchema,
+  amendmentListSchema,
+  amendmentParamsSchema,
+  amendmentReadQuerySchema,
+  amendmentReasonInputSchema,
+  MAX_AMENDMENT_ENTRIES,
+  evidenceFileListSchema,
+  evidenceFileParamsSchema,
+} from '@shared/schemas/amendments';
+import {
+  addEvidence,
+  downloadEvidence,
+  listEvidence,
+  removeEvidence,
+  type UploadedFile,
+} from '../services/amendment-files.service';
+import { requireActor } from '../context';
+import {
+  acceptAmendment,
+  addComment,
+  amendmentCounts,
+  createAmendment,
+  declineAmendment,
+  getAmendment,
+  listAmendments,
+  openAmendment,
+  rebaseAmendment,
+  returnAmendment,
+  revertAmendment,
+  updateAmendment,
+  withdrawAmendment,
+} from '../services/amendments.service';
+import { defineRoute } from './registry';
+
+const states =
+  'States: draft (its author only) → open (in the review queue) → accepted | returned (the author edits and opens it again) | declined; draft, open and returned → withdrawn (by the author). An action from the wrong state is 409 with `details.state`.';
+
+/**
+ * Amendments: the only way the library changes. Signed-in users read amendments that are not
+ * drafts (a draft is its author's: others get 404); proposers (members or team admins of a team,
+ * and curators) propose; curators review, never their own.
+ */
+export const amendmentRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/amendments',
+    summary: 'The amendments: the review queue and everyone’s list',
+    description: `Filters: state (one or several, comma-separated), author ("me" or a user id), species (id or key), olderThanDays (days since last opened, drafts since created); sort newest | oldest | updated | title; limit ≤ 200. Drafts appear to their author only. ${states}`,
+    tags: ['amendments'],
+    access: 'signed_in',
+    request: { query: amendmentListQuerySchema },
+    responses: { 200: amendmentListSchema },
+    handler: ({ ctx, query }) => listAmendments(requireActor(ctx), query),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/amendments/counts',
+    summary: 'Counts of amendments for the navigation',
+    description:
+      'byState (drafts: the caller’s own), awaitingReview (open amendments by others; null unless the caller is a curator), needsMyAction (the caller’s drafts and returned amendments).',
+    tags: ['amendments'],
+    access: 'signed_in',
+    responses: { 200: amendmentCountsSchema },
+    handler: ({ ctx }) => amendmentCounts(requireActor(ctx), {}),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments',
+    summary: 'Propose a change to the library (a new draft)',
+    description: `Entries are checked against the current revision, which becomes the amendment's base; any problem is 400 naming \`entries.N.field\`, and nothing is saved. At most ${MAX_AMENDMENT_ENTRIES} entries (and the 1 MB body). Entry kinds: revise-value, team-value, set-species, set-model, add-reaction, select-value, set-source, mark-checked, deprecate.`,
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { body: amendmentInputSchema },
+    responses: { 201: amendmentDetailSchema },
+    handler: ({ ctx, body }) => createAmendment(requireActor(ctx), body),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/amendments/:amendmentId',
+    summary: 'One amendment: entries, diff, comments, state history, conflicts and impact',
+    description:
+      'The diff is against the base revision. `conflicts` lists later revisions that changed the same things (accepting needs a rebase). `impact` (left out with impact=false, null for accepted, declined and withdrawn amendments) is a dry run against the current revision: demo-scenario reactions old → new ΔrH°, derived values resting on changed inputs, and the consistency check. `allowed` says what the caller may do now.',
+    tags: ['amendments'],
+    access: 'signed_in',
+    request: { params: amendmentParamsSchema, query: amendmentReadQuerySchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params, query }) =>
+      getAmendment(requireActor(ctx), { amendmentId: params.amendmentId, impact: query.impact === 'true' }),
+  }),
+  defineRoute({
+    method: 'put',
+    path: '/amendments/:amendmentId',
+    summary: 'Edit a draft or returned amendment (its author)',
+    description:
+      'Replaces title, rationale and entries; they are checked against the amendment’s base revision (rebase first to check against the current library).',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: amendmentParamsSchema, body: amendmentInputSchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params, body }) =>
+      updateAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/open',
+    summary: 'Put a draft or returned amendment in the review queue (its author)',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: amendmentParamsSchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params }) => openAmendment(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/accept',
+    summary: 'Accept an open amendment: apply it as one new library revision (a curator, not its author)',
+    description:
+      'All entries apply in one transaction, or none. 409 when a later revision changed the same things (`details.reason = "stale_base"`, `details.conflicts`, `details.rebase`), when entries no longer apply (`details.problems`), or when it changes nothing (`"no_change"`). 403 for the author (four eyes).',
+    tags: ['amendments'],
+    access: { site: 'curator' },
+    request: { params: amendmentParamsSchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params }) => acceptAmendment(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/return',
+    summary: 'Send an open amendment back to its author with requests (a curator, not its author)',
+    tags: ['amendments'],
+    access: { site: 'curator' },
+    request: { params: amendmentParamsSchema, body: amendmentReasonInputSchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params, body }) =>
+      returnAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/decline',
+    summary: 'Decline an open amendment, with the reason (a curator, not its author)',
+    tags: ['amendments'],
+    access: { site: 'curator' },
+    request: { params: amendmentParamsSchema, body: amendmentReasonInputSchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params, body }) =>
+      declineAmendment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/withdraw',
+    summary: 'Withdraw a draft, open or returned amendment (its author)',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: amendmentParamsSchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params }) => withdrawAmendment(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/rebase',
+    summary: 'Base the amendment on the current revision and recompute its diff (its author or a curator)',
+    description: 'Entries that no longer apply are 409 naming them; nothing changes until they are edited.',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: amendmentParamsSchema },
+    responses: { 200: amendmentDetailSchema },
+    handler: ({ ctx, params }) => rebaseAmendment(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/revert',
+    summary: 'Propose undoing an accepted amendment: a new draft with the inverse entries',
+    description:
+      'The draft (by the caller) is based on the revision the accepted amendment made; if the library changed the same things since, accepting it asks for a rebase first.',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: amendmentParamsSchema },
+    responses: { 201: amendmentDetailSchema },
+    handler: ({ ctx, params }) => revertAmendment(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/comments',
+    summary: 'Comment on an amendment (its author or a curator)',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: amendmentParamsSchema, body: amendmentCommentInputSchema },
+    responses: { 201: amendmentCommentSchema },
+    handler: ({ ctx, params, body }) => addComment(requireActor(ctx), { ...body, amendmentId: params.amendmentId }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/amendments/:amendmentId/files',
+    summary: 'The evidence files of an amendment',
+    tags: ['amendments'],
+    access: 'signed_in',
+    request: { params: amendmentParamsSchema },
+    responses: { 200: evidenceFileListSchema },
+    handler: ({ ctx, params }) => listEvidence(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/amendments/:amendmentId/files',
+    summary: 'Attach evidence files (its author, before the amendment is decided)',
+    description:
+      'multipart/form-data, files in the field `files`. Accepted: PDF, CSV (or other UTF-8 text without NUL bytes), XLSX, PNG, JPEG, GIF, WebP — the type is read from the content, never from the name or the declared type (415 otherwise, naming the file). Limits (413 naming the limit): EVIDENCE_MAX_FILE_MB per file, EVIDENCE_MAX_FILES_PER_UPLOAD per request, EVIDENCE_MAX_FILES_PER_AMENDMENT per amendment. All files of a request are stored, or none.',
+    tags: ['amendments'],
+    access: 'proposer',
+    upload: { field: 'files' },
+    request: { params: amendmentParamsSchema },
+    responses: { 201: evidenceFileListSchema },
+    handler: ({ ctx, params, req }) =>
+      addEvidence(requireActor(ctx), {
+        amendmentId: params.amendmentId,
+        files: (Array.isArray(req.files) ? req.files : []) as UploadedFile[],
+      }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/amendments/:amendmentId/files/:fileId',
+    summary: 'Download one evidence file',
+    description:
+      'The file’s bytes, always as an attachment (Content-Disposition: attachment, X-Content-Type-Options: nosniff, a sandboxing Content-Security-Policy), with the type read from its content at upload.',
+    tags: ['amendments'],
+    access: 'signed_in',
+    request: { params: evidenceFileParamsSchema },
+    responses: { 200: null },
+    handler: ({ ctx, params }) => downloadEvidence(requireActor(ctx), params),
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/amendments/:amendmentId/files/:fileId',
+    summary: 'Remove an evidence file (its author, before the amendment is decided)',
+    tags: ['amendments'],
+    access: 'proposer',
+    request: { params: evidenceFileParamsSchema },
+    responses: { 204: null },
+    handler: ({ ctx, params }) => removeEvidence(requireActor(ctx), params),
+  }),
+];

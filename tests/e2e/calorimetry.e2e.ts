@@ -1,0 +1,86 @@
+/**
+ * Calorimetry: a member uploads a run's time–temperature readings, maps the columns, reduces the
+ * run and keeps it with the team. The readings are an invented run, generated here from Newton's
+ * law with a first-order heat release (tests/shared/chemistry/calorimetry/support.ts).
+ */
+import { describe, expect, it } from 'vitest';
+import { newtonianReadings } from '../shared/chemistry/calorimetry/support';
+import { apiAs, screenshot, signIn, unique, useBrowser } from './helpers';
+
+const browser = useBrowser();
+
+/** 100 mL + 100 mL of 0.5 mol/L acid and base: the rise of a quiet calorimeter, in °C, a reading every 5 s. */
+function readingsCsv(): string {
+  const rows = newtonianReadings({
+    k: 1e-4,
+    convergence: 295.9,
+    start: 295.65,
+    rise: 3.36,
+    release: 0.1,
+    mixingTime: 300,
+    step: 5,
+    end: 900,
+  }).map(([t, kelvin]) => `${t},${(kelvin - 273.15).toFixed(4)}`);
+  return ['time_s,temperature_C', ...rows].join('\n');
+}
+
+describe('calorimetry page', () => {
+  it('lets a member reduce a constant-pressure run from uploaded readings and save it to the team', async () => {
+    const { page } = browser;
+    await signIn(page, 'member');
+    await page.getByTestId('nav-calorimetry').click();
+    await page.waitForURL(/\/calorimetry$/);
+    await expect.poll(() => page.getByTestId('calorimetry-cautions').first().isVisible()).toBe(true);
+
+    await page.getByRole('textbox', { name: 'Volume of the solution (mL)' }).fill('200');
+    await page.getByRole('textbox', { name: 'Calorimeter heat capacity (J/K)' }).fill('0');
+    await page.getByText('Time–temperature file').click();
+    await page.getByTestId('readings-file').setInputFiles({
+      name: 'neutralisation-run-1.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from(readingsCsv(), 'utf8'),
+    });
+    const preview = page.getByTestId('readings-preview');
+    await expect.poll(() => preview.textContent()).toContain('temperature_C');
+    await page.getByRole('textbox', { name: 'Mixing time (s)' }).fill('300');
+    await page.getByRole('textbox', { name: 'After-period starts (s)' }).fill('400');
+
+    await page.getByRole('textbox', { name: 'Equation as written' }).fill('HCl(aq) + NaOH(aq) -> NaCl(aq) + H2O(l)');
+    await page.getByRole('textbox', { name: 'Amount of the limiting reactant (mol)' }).fill('0.05');
+    await page.getByTestId('cp-reduce').click();
+
+    const deltaH = page.getByTestId('cp-deltaH');
+    await deltaH.waitFor();
+    // q = 200 g × 4.184 J/(g K) × ~3.36 K ≈ 2.81 kJ over 0.05 mol: about −56 kJ/mol (hand-computed).
+    const shown = Number(((await deltaH.textContent()) ?? '').replace('\u2212', '-').split(/\s/)[0]);
+    expect(shown).toBeLessThan(-54);
+    expect(shown).toBeGreaterThan(-58);
+    await page.getByTestId('drift-plot').waitFor();
+    await page.getByTestId('calorimetry-contributions').waitFor();
+
+    const label = unique('Neutralisation');
+    await page.getByRole('textbox', { name: 'Run label' }).fill(label);
+    await page.getByRole('button', { name: 'Save run to team' }).click();
+    await expect.poll(() => page.getByTestId('run-saved').textContent()).toContain(label);
+    await screenshot(page, 'calorimetry-saved');
+
+    // The team holds the run with its readings file as evidence.
+    const { api, session } = await apiAs('viewer');
+    try {
+      const teamId = session.teams[0]!.id;
+      const list = (await (await api.get(`/api/v1/teams/${teamId}/calorimetry/runs`)).json()) as {
+        runs: { id: string; label: string }[];
+      };
+      const line = list.runs.find((r) => r.label === label);
+      expect(line).toBeDefined();
+      const run = (await (await api.get(`/api/v1/teams/${teamId}/calorimetry/runs/${line!.id}`)).json()) as {
+        evidence: { fileName: string } | null;
+        result: { deltaT: { source: string } };
+      };
+      expect(run.evidence?.fileName).toBe('neutralisation-run-1.csv');
+      expect(run.result.deltaT.source).toBe('series');
+    } finally {
+      await api.dispose();
+    }
+  });
+});
