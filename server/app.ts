@@ -18,6 +18,7 @@ import { apiNotFound } from './middleware/not-found';
 import { LibraryCache } from './library/snapshot';
 import { requestLog } from './middleware/request-log';
 import { securityHeaders } from './middleware/security-headers';
+import { shareHeaders } from './middleware/share-headers';
 import { buildRouter } from './routes/build-router';
 import { apiRoutes } from './routes/index';
 import { API_PREFIX, type AnyRoute } from './routes/registry';
@@ -87,6 +88,7 @@ export function createApp(options: CreateAppOptions): ThermoledgerApp {
 
   app.use(requestLog(log));
   app.use(securityHeaders());
+  app.use([`${API_PREFIX}/shared`, '/shared'], shareHeaders());
   app.use(API_PREFIX, (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     next();

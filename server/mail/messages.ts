@@ -42,6 +42,30 @@ export function passwordResetMail(args: { to: string; link: string; minutes: num
   };
 }
 
+export function setLinkMail(args: {
+  to: string;
+  senderName: string;
+  setTitle: string;
+  link: string;
+  expiresAt: Date | null;
+}): MailMessage {
+  return {
+    to: args.to,
+    subject: `${args.senderName} shared "${args.setTitle}" with you on Thermoledger`,
+    text: [
+      `${args.senderName} shared a reaction set with you: ${args.setTitle}.`,
+      '',
+      'Open this link to read it (no account needed; it is read-only):',
+      args.link,
+      '',
+      args.expiresAt
+        ? `The link works until ${args.expiresAt.toUTCString()}, unless it is revoked sooner.`
+        : 'The link works until it is revoked.',
+      'Anyone with the link can read the set, so forward it only to people who should.',
+    ].join('\n'),
+  };
+}
+
 /** What happened to an amendment, for the e-mail to the people it concerns. */
 export interface AmendmentNewsArgs {
   to: string;

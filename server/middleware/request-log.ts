@@ -4,9 +4,15 @@ import type { RequestHandler } from 'express';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 
-/** The URL as logged: no query string (reset links carry secrets there) and invitation tokens masked. */
+/** The URL as logged: no query string (reset links carry secrets there), invitation and share tokens masked. */
 export function loggableUrl(url: string): string {
-  return url.split('?')[0]!.replace(/\/invitations\/[^/]+/, '/invitations/…');
+  return (
+    url
+      .split('?')[0]!
+      .replace(/\/invitations\/[^/]+/, '/invitations/…')
+      // The API's /api/v1/shared/… and the share page's /shared/… alike.
+      .replace(/\/shared\/[^/]+/, '/shared/…')
+  );
 }
 
 /**

@@ -9,7 +9,7 @@ import { calcLineBudget, calcRequestLimit } from '../middleware/rate-limit';
 import { serviceContext } from '../middleware/service-context';
 import { validate } from '../middleware/validate';
 import { acceptUpload } from '../middleware/upload';
-import { FileReply } from '../lib/file-reply';
+import { FileDownload, FileReply } from '../lib/file-reply';
 import { ReplyWithStatus, successStatus, type AnyRoute } from './registry';
 
 function hasBody(req: Request): boolean {
@@ -72,6 +72,12 @@ function runHandler(route: AnyRoute, deps: AppDeps): RequestHandler {
     if (res.headersSent) return;
     if (result instanceof FileReply) {
       await sendAttachment(res, result);
+      return;
+    }
+    if (result instanceof FileDownload) {
+      // Exports: a file with its own type, downloaded under its name. attachment() sets a type
+      // from the file extension, so our own type goes after it.
+      res.status(status).attachment(result.filename).type(result.contentType).send(result.body);
       return;
     }
     let replyStatus = status;

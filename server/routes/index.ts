@@ -14,6 +14,7 @@ import { notificationRoutes } from './notifications.routes';
 import { buildOpenApiDocument } from './openapi';
 import { passwordResetRoutes } from './password-resets.routes';
 import { reactionEnthalpyRoutes } from './reaction-enthalpy.routes';
+import { reactionSetRoutes } from './reaction-sets.routes';
 import { defineRoute, type AnyRoute } from './registry';
 import { sessionRoutes } from './session.routes';
 import { teamRoutes } from './teams.routes';
@@ -34,6 +35,7 @@ const resourceRoutes: AnyRoute[] = [
   ...reactionEnthalpyRoutes,
   ...deriveRoutes,
   ...derivedValueRoutes,
+  ...reactionSetRoutes,
   ...calorimetryRoutes,
   ...calorimetryRunRoutes,
 ];

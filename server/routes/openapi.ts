@@ -42,7 +42,7 @@ export function buildOpenApiDocument(routes: readonly AnyRoute[], config: AppCon
     const responses: Record<string, { description: string; content?: Record<string, { schema: unknown }> }> = {};
     for (const [status, schema] of Object.entries(route.responses)) {
       responses[status] = schema
-        ? { description: 'Success', content: { 'application/json': { schema } } }
+        ? { description: 'Success', content: { [route.produces ?? 'application/json']: { schema } } }
         : { description: 'Success, no body' };
     }
     for (const status of errorResponsesFor(route)) {

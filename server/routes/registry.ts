@@ -52,6 +52,8 @@ export interface RouteDefinition<
   request?: { params?: P; query?: Q; body?: B };
   /** Reply schema per status; null means no body (204, 202). The lowest 2xx is the success status. */
   responses: Record<number, z.ZodType | null>;
+  /** Content type of a file reply (a `FileReply`), for the OpenAPI document; JSON when absent. */
+  produces?: string;
   /** Calculation endpoints share per-address limits: requests a minute, and equation lines a minute. */
   rateLimit?: 'calc';
   /**

@@ -131,5 +131,7 @@ export const http = {
     request<T>('POST', path, { ...options, body }),
   patch: <T = void>(path: string, body?: unknown, options?: Omit<RequestOptions<T>, 'body'>) =>
     request<T>('PATCH', path, { ...options, body }),
+  put: <T = void>(path: string, body?: unknown, options?: Omit<RequestOptions<T>, 'body'>) =>
+    request<T>('PUT', path, { ...options, body }),
   delete: <T = void>(path: string, options?: Omit<RequestOptions<T>, 'body'>) => request<T>('DELETE', path, options),
 };

@@ -93,6 +93,25 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('@/views/TeamMembersView.vue'),
     meta: { access: { team: 'viewer' }, title: 'Members' },
   },
+  {
+    path: '/teams/:teamId/sets',
+    name: 'team-sets',
+    component: () => import('@/views/TeamSetsView.vue'),
+    meta: { access: { team: 'viewer' }, title: 'Reaction sets' },
+  },
+  {
+    path: '/teams/:teamId/sets/:setId',
+    name: 'team-set',
+    component: () => import('@/views/SetView.vue'),
+    meta: { access: { team: 'viewer' }, title: 'Reaction set' },
+  },
+  {
+    // A share link: no sign-in; the token is the only key.
+    path: '/shared/:token',
+    name: 'shared-set',
+    component: () => import('@/views/SharedSetView.vue'),
+    meta: { access: 'public', title: 'Shared reaction set' },
+  },
   { path: '/admin', redirect: { name: 'admin-users' } },
   {
     path: '/admin/users',

@@ -24,7 +24,15 @@ describe('visibleNavItems', () => {
       via: 'session',
     };
     const items = visibleNavItems(navItems, viewer, team);
-    expect(items.map((i) => i.key)).toEqual(['workbench', 'library', 'derive', 'calorimetry', 'notes', 'members']);
+    expect(items.map((i) => i.key)).toEqual([
+      'workbench',
+      'library',
+      'derive',
+      'calorimetry',
+      'sets',
+      'notes',
+      'members',
+    ]);
     expect(items.find((i) => i.key === 'notes')?.params).toEqual({ teamId: team });
     expect(items.find((i) => i.key === 'workbench')?.params).toEqual({});
   });
@@ -40,7 +48,7 @@ describe('visibleNavItems', () => {
       teams: [{ id: team, name: 'T', slug: 't', role: 'member' }],
       via: 'session',
     };
-    expect(keys(curator, team)).toEqual(['workbench', 'library', 'derive', 'calorimetry', 'notes', 'members']);
+    expect(keys(curator, team)).toEqual(['workbench', 'library', 'derive', 'calorimetry', 'sets', 'notes', 'members']);
   });
 
   it('drops team areas when the current team is not one of the user’s', () => {

@@ -56,6 +56,14 @@ const members: Step = {
     await page.getByTestId('members-table').locator('tbody tr').first().waitFor();
   },
 };
+const sets: Step = {
+  name: 'team reaction sets',
+  open: async (page) => {
+    await openTeamArea(page, 'sets');
+    await page.getByRole('heading', { name: 'Reaction sets', level: 1 }).waitFor();
+    await page.getByText(/set\(s\)/).waitFor();
+  },
+};
 const deriveGiven: Step = {
   name: 'derive, a result from given reactions',
   open: async (page) => {
@@ -127,6 +135,13 @@ const walks: Record<Role | 'anonymous', Step[]> = {
       },
     },
     {
+      name: 'share link that opens nothing',
+      open: async (page) => {
+        await page.goto(`/shared/${'A'.repeat(65)}`);
+        await page.getByText('This link opens nothing').waitFor();
+      },
+    },
+    {
       name: 'page not found',
       open: async (page) => {
         await page.goto('/no/such/page');
@@ -140,6 +155,7 @@ const walks: Record<Role | 'anonymous', Step[]> = {
     teamDerivedValues,
     notes,
     members,
+    sets,
     {
       name: 'admin page, not allowed',
       open: async (page) => {
@@ -148,8 +164,8 @@ const walks: Record<Role | 'anonymous', Step[]> = {
       },
     },
   ],
-  member: [workbenchBalanced, account, notes, noteComposer, members, deriveGiven, teamDerivedValues],
-  teamAdmin: [workbenchBalanced, notes, members],
+  member: [workbenchBalanced, account, notes, noteComposer, members, deriveGiven, teamDerivedValues, sets],
+  teamAdmin: [workbenchBalanced, notes, members, sets],
   curator: [workbenchBalanced, account, notes, members, consistency],
   siteAdmin: [
     workbenchBalanced,

@@ -141,7 +141,7 @@ export async function signOut(page: Page): Promise<void> {
 }
 
 /** Opens the current team's page from the header's nav (team ids are made by the database). */
-export async function openTeamArea(page: Page, area: 'notes' | 'members'): Promise<void> {
+export async function openTeamArea(page: Page, area: 'notes' | 'members' | 'sets'): Promise<void> {
   await page.goto('/');
   await page.getByTestId(`nav-${area}`).click();
   await page.waitForURL(new RegExp(`/teams/[^/]+/${area}$`));

@@ -4,6 +4,7 @@ import type TestAgent from 'supertest/lib/agent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { teamRoleAtLeast, type SiteRole, type TeamRole } from '@shared/schemas/roles';
 import type { Access } from '@shared/schemas/access';
+import { seedLibrary } from '../../server/library/seed-library';
 import { defineRoute, routeKey, type AnyRoute } from '../../server/routes/registry';
 import { startTestApp, type TestApp } from './helpers';
 
@@ -87,6 +88,32 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/teams/:teamId/derived-values': { team: 'viewer' },
   'POST /api/v1/teams/:teamId/derived-values': { team: 'member' },
   'DELETE /api/v1/teams/:teamId/derived-values/:valueId': { team: 'member' },
+  'GET /api/v1/teams/:teamId/sets': { team: 'viewer' },
+  'POST /api/v1/teams/:teamId/sets': { team: 'member' },
+  'POST /api/v1/teams/:teamId/sets/import': { team: 'member' },
+  'GET /api/v1/teams/:teamId/sets/:setId': { team: 'viewer' },
+  'PUT /api/v1/teams/:teamId/sets/:setId': { team: 'member' },
+  'DELETE /api/v1/teams/:teamId/sets/:setId': { team: 'member' },
+  'GET /api/v1/teams/:teamId/sets/:setId/results': { team: 'viewer' },
+  'GET /api/v1/teams/:teamId/sets/:setId/versions': { team: 'viewer' },
+  'GET /api/v1/teams/:teamId/sets/:setId/versions/:version': { team: 'viewer' },
+  'GET /api/v1/teams/:teamId/sets/:setId/diff': { team: 'viewer' },
+  'POST /api/v1/teams/:teamId/sets/:setId/versions/:version/restore': { team: 'member' },
+  'GET /api/v1/teams/:teamId/sets/:setId/revision-changes': { team: 'viewer' },
+  'POST /api/v1/teams/:teamId/sets/:setId/move-to-latest': { team: 'member' },
+  'GET /api/v1/teams/:teamId/sets/:setId/links': { team: 'member' },
+  'POST /api/v1/teams/:teamId/sets/:setId/links': { team: 'member' },
+  'DELETE /api/v1/teams/:teamId/sets/:setId/links/:linkId': { team: 'member' },
+  'GET /api/v1/teams/:teamId/sets/:setId/export.csv': { team: 'viewer' },
+  'GET /api/v1/teams/:teamId/sets/:setId/export.json': { team: 'viewer' },
+  'GET /api/v1/teams/:teamId/sets/:setId/export.bib': { team: 'viewer' },
+  'GET /api/v1/teams/:teamId/sets/:setId/export.pdf': { team: 'viewer' },
+  'GET /api/v1/shared/:token': 'public',
+  'GET /api/v1/shared/:token/export.csv': 'public',
+  'GET /api/v1/shared/:token/export.json': 'public',
+  'GET /api/v1/shared/:token/export.bib': 'public',
+  'GET /api/v1/shared/:token/export.pdf': 'public',
+  'POST /api/v1/shared/:token/copy': 'signed_in',
   'POST /api/v1/calorimetry/constant-pressure': 'public',
   'POST /api/v1/calorimetry/bomb': 'public',
   'GET /api/v1/teams/:teamId/calorimetry/runs': { team: 'viewer' },
@@ -131,6 +158,8 @@ let t: TestApp;
 let routes: AnyRoute[];
 beforeAll(async () => {
   t = await startTestApp({ extraRoutes: [curatorProbe] });
+  // Library routes answer 503 while the library is empty; seeded, every route reaches its access check and beyond.
+  await seedLibrary(t.db);
   routes = t.app.locals.routes;
 });
 afterAll(async () => t?.close());
@@ -140,7 +169,10 @@ function urlFor(route: AnyRoute): string {
   const path = route.path
     .replace(':teamId', t.ids.teams.kestrel)
     .replace(':token', 'x'.repeat(43))
-    .replace(/:(userId|noteId|invitationId|tokenId|amendmentId|fileId|runId)/g, () => randomUUID());
+    .replace(':version', '1')
+    .replace(/:(userId|noteId|invitationId|tokenId|setId|linkId|valueId|amendmentId|fileId|runId)/g, () =>
+      randomUUID(),
+    );
   return `/api/v1${path}`;
 }
 

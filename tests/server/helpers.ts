@@ -166,7 +166,7 @@ export interface TestApp {
 }
 
 const TABLES =
-  'digest_items, notification_settings, amendment_files, amendment_comments, amendment_events, amendment_entries, amendments, audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
+  'reaction_set_links, reaction_set_versions, reaction_sets, digest_items, notification_settings, amendment_files, amendment_comments, amendment_events, amendment_entries, amendments, calorimetry_runs, audit_log, notes, password_resets, invitations, api_tokens, sessions, memberships, teams, users';
 
 async function readIds(open: OpenDatabase): Promise<DemoIds> {
   const { teams, users } = await import('../../server/db/tables/index');

@@ -10,6 +10,7 @@ export * from './audit-log';
 export * from './notes';
 export * from './library';
 export * from './derived-values';
+export * from './reaction-sets';
 export * from './amendments';
 export * from './notifications';
 export * from './calorimetry-runs';
