@@ -1,0 +1,191 @@
+/**
+ * The Hess combiner on a generated library (tests/bench/fixtures/generate-hess-library.ts):
+ * 10,000 species, 90 % with a ΔfH°, 20,000 measured reactions of 2–6 species. Reports:
+ *
+ * - the first request after a new revision: the known reactions read from their text (as
+ *   server/library/network.ts does) and `buildHessNetwork`, for the benchmark library and for one
+ *   of 30,000 known reactions;
+ * - `deriveEnthalpy` of the formation of species without a ΔfH°, with the server's bounds
+ *   (derive.service.ts: maxSteps 6, maxExamined 20,000, maxRoutes 5, 2 s time budget):
+ *   p50/p95/p99 per kind of target — reachable species of the main network (target p95 ≤ 50 ms),
+ *   those of them in 20 or more reactions (many routes to rank), species whose every route needs
+ *   a second unknown, and the unreachable: species in no reaction, and species reachable only
+ *   through other unknowns (trees of unknowns);
+ * - the same reachable targets through `deriveEnthalpyAsync` with a setImmediate pause between
+ *   slices, as the service runs it;
+ * - exactness: every route found must add up to the generator's true value exactly (fractions),
+ *   and the headline (a floating-point combination when routes agree) must lie within 1e-9.
+ *
+ * Run: npm run bench:derive   (= node --expose-gc --import tsx tests/bench/derive-p95.ts)
+ * ROUNDS (default 3) timed rounds over every target; PROFILE_DIR=<dir> writes CPU profiles.
+ */
+import Fraction from 'fraction.js';
+import {
+  buildHessNetwork,
+  deriveEnthalpy,
+  deriveEnthalpyAsync,
+  type Derivation,
+  type HessNetwork,
+  type InputInfo,
+  type RouteSearchOptions,
+} from '@shared/chemistry/hess';
+import { defaultDeriveLimits } from '../../server/services/derive.service';
+import { heapMb, loadText, profiled, reportLine } from './fixtures/bench-report';
+import { generateHessLibrary, knownReactionsOf, type GeneratedHessLibrary } from './fixtures/generate-hess-library';
+import { percentile } from './fixtures/species-search-measure';
+
+const ROUNDS = Number(process.env.ROUNDS ?? 3);
+const now = () => performance.now();
+
+console.log(`load average at start: ${loadText()}`);
+let started = now();
+const library = generateHessLibrary();
+console.log(
+  `library: ${library.species.length} species (${library.species.filter((s) => s.known).length} with ΔfH°), ` +
+    `${library.reactions.length} measured reactions, generated in ${(now() - started).toFixed(0)} ms`,
+);
+
+// ------------------------------------------------------------ first request after a new revision
+
+/** Known reactions from text and the network over them, timed apart; fresh objects each time. */
+function buildTimed(lib: GeneratedHessLibrary): { readMs: number; buildMs: number; network: HessNetwork; inputs: Map<string, InputInfo> } {
+  const t0 = now();
+  const known = knownReactionsOf(lib);
+  const t1 = now();
+  const network = buildHessNetwork(known.reactions, known.species);
+  return { readMs: t1 - t0, buildMs: now() - t1, network, inputs: known.inputs };
+}
+
+const options = (): RouteSearchOptions => {
+  const start = Date.now();
+  return {
+    maxSteps: defaultDeriveLimits.maxSteps,
+    maxExamined: defaultDeriveLimits.maxExamined,
+    maxRoutes: 5,
+    outOfTime: () => Date.now() - start > defaultDeriveLimits.timeBudgetMs,
+  };
+};
+const target = (key: string) => [{ species: key, coefficient: new Fraction(1) }];
+
+const heapBefore = heapMb();
+const first = buildTimed(library);
+const heapNetwork = heapMb() - heapBefore;
+started = now();
+const firstDerivation = deriveEnthalpy(first.network, target(library.unknown.main[0]!), first.inputs, options());
+const firstDeriveMs = now() - started;
+console.log(
+  `\nfirst request after a new revision (${first.network.reactions.length} known reactions; cold code):\n` +
+    `  read reactions from text ${first.readMs.toFixed(0)} ms + buildHessNetwork ${first.buildMs.toFixed(0)} ms ` +
+    `+ first derivation ${firstDeriveMs.toFixed(1)} ms (${firstDerivation.status})` +
+    `  heap held by the network and inputs ${heapNetwork.toFixed(0)} MB  load ${loadText()}`,
+);
+const knownCount = library.species.filter((s) => s.known).length;
+const big = generateHessLibrary({ reactions: 30_000 - knownCount });
+for (let round = 0; round < 3; round++) {
+  const b = buildTimed(big);
+  console.log(
+    `  ${b.network.reactions.length} known reactions, round ${round + 1}: read from text ${b.readMs.toFixed(0)} ms, ` +
+      `buildHessNetwork ${b.buildMs.toFixed(0)} ms  load ${loadText()}`,
+  );
+}
+
+// ------------------------------------------------------------ derivations
+
+const { network, inputs } = first;
+const many = library.unknown.main.filter((k) => library.byKey.get(k)!.reactions >= 20);
+const kinds: [string, string[], string?][] = [
+  ['reachable (main network)', library.unknown.main, 'p95 ≤ 50 ms'],
+  ['  of them in 20+ reactions (many routes)', many],
+  ['needs a second unknown (two-step)', library.unknown.twoStep],
+  ['unreachable: in no reaction', library.unknown.isolated],
+  ['unreachable: only through unknowns (trees)', library.unknown.tree],
+];
+
+interface Outcome {
+  ms: number;
+  derivation: Derivation;
+}
+function runAll(keys: readonly string[]): Outcome[] {
+  return keys.map((key) => {
+    const start = now();
+    const derivation = deriveEnthalpy(network, target(key), inputs, options());
+    return { ms: now() - start, derivation };
+  });
+}
+
+// Warm-up: one pass over a sample of every kind.
+for (const [, keys] of kinds) runAll(keys.filter((_, i) => i % 5 === 0));
+
+console.log(`\nderiveEnthalpy, ${ROUNDS} rounds over every target (ms per derivation, wall clock):`);
+const lastRound = new Map<string, Outcome[]>();
+for (const [label, keys, goal] of kinds) {
+  const samples: number[] = [];
+  const cpu = process.cpuUsage();
+  await profiled(`derive ${label.trim()}`, async () => {
+    for (let round = 0; round < ROUNDS; round++) {
+      const outcomes = runAll(keys);
+      samples.push(...outcomes.map((o) => o.ms));
+      lastRound.set(label, outcomes);
+    }
+  });
+  const used = process.cpuUsage(cpu);
+  const outcomes = lastRound.get(label)!;
+  const examined = outcomes.map((o) => o.derivation.search.examined);
+  const found = outcomes.map((o) => o.derivation.search.found);
+  const stopped = outcomes.filter((o) => o.derivation.search.stoppedBy).length;
+  const derived = outcomes.filter((o) => o.derivation.status === 'derived').length;
+  console.log(reportLine(`${label} (${keys.length})`, samples, goal));
+  console.log(
+    `${''.padEnd(44)} CPU ${((used.user + used.system) / 1000 / samples.length).toFixed(2)} ms/derivation; ` +
+      `derived ${derived}/${keys.length}; examined p50 ${percentile(examined, 50)} max ${Math.max(...examined)}; ` +
+      `routes found p50 ${percentile(found, 50)} max ${Math.max(...found)}; stopped by a bound ${stopped}`,
+  );
+}
+
+// The service's way: the same search in slices with a setImmediate pause between them.
+{
+  const keys = library.unknown.main;
+  const samples: number[] = [];
+  for (let round = 0; round < ROUNDS; round++)
+    for (const key of keys) {
+      const start = now();
+      await deriveEnthalpyAsync(
+        network,
+        target(key),
+        inputs,
+        options(),
+        () => new Promise<void>((resolve) => setImmediate(resolve)),
+      );
+      samples.push(now() - start);
+    }
+  console.log(reportLine(`reachable, deriveEnthalpyAsync (${keys.length})`, samples, 'p95 ≤ 50 ms'));
+}
+
+// ------------------------------------------------------------ exactness
+
+let routesChecked = 0;
+let routesExact = 0;
+let headlines = 0;
+let worstHeadline = 0;
+const basisCount = new Map<string, number>();
+// Check against the true value of the target each derivation was for.
+for (const [label, keys] of [kinds[0]!, kinds[2]!]) {
+  lastRound.get(label)!.forEach(({ derivation }, i) => {
+    if (derivation.status !== 'derived') return;
+    const truth = library.byKey.get(keys[i]!)!.value;
+    for (const route of derivation.routes) {
+      routesChecked++;
+      if (route.deltaH.equals(truth)) routesExact++;
+    }
+    headlines++;
+    worstHeadline = Math.max(worstHeadline, Math.abs(derivation.deltaH! - truth.valueOf()));
+    basisCount.set(derivation.basis!, (basisCount.get(derivation.basis!) ?? 0) + 1);
+  });
+}
+console.log(
+  `\nexactness: ${routesExact}/${routesChecked} routes equal the true ΔfH° exactly (fractions); ` +
+    `${headlines} headline values, largest |headline − true| ${worstHeadline.toExponential(2)} kJ/mol ` +
+    `(${[...basisCount].map(([b, n]) => `${b} ${n}`).join(', ')})`,
+);
+if (routesExact !== routesChecked || worstHeadline > 1e-9) console.log('  MISMATCH: a derived value differs from the truth');
+console.log(`\nload average at end: ${loadText()}`);
