@@ -22,6 +22,8 @@ export default defineConfig({
     testTimeout: 30_000,
     hookTimeout: 60_000,
     pool: 'forks',
+    // One migrated database with the library seeded, built once per run for the server tests.
+    globalSetup: ['tests/setup/seeded-database.ts'],
     benchmark: { include: ['tests/bench/**/*.bench.ts'] },
   },
 });

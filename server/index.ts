@@ -58,17 +58,17 @@ async function main(): Promise<void> {
   });
   const port = (server.address() as AddressInfo).port;
   const shownHost = env.HOST.includes(':') ? `[${env.HOST}]` : env.HOST;
-  console.log(`Thermoledger is listening on http://${shownHost}:${port} (public URL ${config.publicUrl})`);
-  console.log(
+  // One write, so a reader that waits for the first line sees the whole start-up summary.
+  const summary = [
+    `Thermoledger is listening on http://${shownHost}:${port} (public URL ${config.publicUrl})`,
     `Database: ${open.kind === 'pglite' ? `PGlite in ${env.DATA_DIR}` : 'PostgreSQL server (DATABASE_URL)'}; NODE_ENV=${env.NODE_ENV}`,
-  );
-  if (seededRevision !== null) console.log(`Library: seeded as revision ${seededRevision} from seeds/library`);
-  console.log(
+    ...(seededRevision !== null ? [`Library: seeded as revision ${seededRevision} from seeds/library`] : []),
     fakeSmtp
       ? `Mail: development SMTP server on ${fakeSmtp.host}:${fakeSmtp.port}; read it at /api/v1/admin/outbox as a site admin`
       : `Mail: SMTP ${env.SMTP_HOST}:${env.SMTP_PORT}`,
-  );
-  for (const line of demoLines(demo)) console.log(line);
+    ...demoLines(demo),
+  ];
+  console.log(summary.join('\n'));
 
   let stopping = false;
   const stop = async (signal: string) => {

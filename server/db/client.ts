@@ -28,7 +28,14 @@ export interface OpenDatabase {
   close(): Promise<void>;
 }
 
-export type DatabaseTarget = { kind: 'pglite'; dataDir: string | 'memory://' } | { kind: 'postgres'; url: string };
+export type DatabaseTarget =
+  | {
+      kind: 'pglite';
+      dataDir: string | 'memory://';
+      /** A data-directory dump to start from (in-memory only; tests start from a seeded one). */
+      loadDataDir?: Blob;
+    }
+  | { kind: 'postgres'; url: string };
 
 /**
  * Opens PGlite (persisted in `dataDir`, or in memory) or a PostgreSQL server pool, both behind
@@ -50,7 +57,10 @@ export async function openDatabase(target: DatabaseTarget): Promise<OpenDatabase
     const pidFile = path.join(dataDir, 'postmaster.pid');
     if (existsSync(pidFile)) rmSync(pidFile);
   }
-  const pglite = new PGlite(dataDir);
+  const pglite = new PGlite({
+    ...(dataDir ? { dataDir } : {}),
+    ...(target.loadDataDir ? { loadDataDir: target.loadDataDir } : {}),
+  });
   await pglite.waitReady;
   const db = drizzlePglite({ client: pglite, schema }) as unknown as Db;
   return { db, kind: 'pglite', pglite, close: () => pglite.close() };

@@ -1,4 +1,6 @@
+import { inject } from 'vitest';
 import { randomBytes } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { sql } from 'drizzle-orm';
@@ -15,6 +17,7 @@ import { configFromEnv, readEnv, type AppConfig } from '../../server/env';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
 import { createMailer, type Mailer, type MailMessage } from '../../server/mail/mailer';
 import type { AnyRoute } from '../../server/routes/registry';
+import { DUMP_ENV, TEMPLATE_ENV } from '../setup/seeded-database';
 
 /** The demo accounts by the role they play in tests (seeds/demo is the one list). */
 export const demoUsers = demoAccounts;
@@ -74,19 +77,41 @@ export class SteerableMailer implements Mailer {
   }
 }
 
-/** A fresh database for one test file: in-memory PGlite, or (DATABASE_URL set) a new database on that server. */
+/** A value the run's global set-up provided, or undefined outside vitest (scripts, benchmarks). */
+function provided(key: typeof DUMP_ENV | typeof TEMPLATE_ENV): string | undefined {
+  try {
+    return inject(key);
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * A fresh database for one test file, migrated and with the library seeded (revision 1): in-memory
+ * PGlite loaded from the run's seeded dump, or (DATABASE_URL set) a new database on that server
+ * created from the run's template (tests/setup/seeded-database.ts). A `dataDir` gives an empty,
+ * migrated PGlite on disk instead (persistence tests).
+ */
 export async function openTestDatabase(dataDir: string | 'memory://' = 'memory://'): Promise<OpenDatabase> {
   const baseUrl = process.env['DATABASE_URL'];
   if (!baseUrl) {
+    const dump = provided(DUMP_ENV);
+    if (dataDir === 'memory://' && dump) {
+      const loadDataDir = new Blob([readFileSync(dump)]);
+      const open = await openDatabase({ kind: 'pglite', dataDir, loadDataDir });
+      await runMigrations(open);
+      return open;
+    }
     const open = await openDatabase({ kind: 'pglite', dataDir });
     await runMigrations(open);
     return open;
   }
   // Test files run in parallel forks: each gets its own database, dropped at close.
   const name = `tl_test_${process.pid}_${randomBytes(4).toString('hex')}`;
+  const template = provided(TEMPLATE_ENV);
   const admin = new pg.Client({ connectionString: baseUrl });
   await admin.connect();
-  await admin.query(`create database ${name}`);
+  await admin.query(template ? `create database ${name} template ${template}` : `create database ${name}`);
   await admin.end();
   const url = new URL(baseUrl);
   url.pathname = `/${name}`;

@@ -73,7 +73,8 @@ function startServer(dataDir: string): Promise<{ child: ChildProcess; url: strin
     const onData = (chunk: Buffer) => {
       out += chunk.toString();
       const match = /listening on (http:\/\/127\.0\.0\.1:\d+)/.exec(out);
-      if (match) resolve({ child, url: match[1]!, output: () => out });
+      // The summary ends with the demo-account lines; wait for them as well.
+      if (match && /Demo accounts: .*\n/.test(out)) resolve({ child, url: match[1]!, output: () => out });
     };
     child.stdout!.on('data', onData);
     child.stderr!.on('data', onData);

@@ -24,7 +24,6 @@ import type {
   SourceKind,
   UncertaintyKind,
 } from '../../../shared/schemas/library-core';
-import { users } from './users';
 
 /*
  * The library is temporal: every versioned row carries the revision it appeared in (`valid_from`)
@@ -47,7 +46,8 @@ export const libraryRevisions = pgTable('library_revisions', {
   kind: text('kind').$type<RevisionKind>().notNull(),
   summary: text('summary').notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+  // No foreign key: the library's history outlives accounts (and test resets of them); the e-mail stays.
+  createdBy: uuid('created_by'),
   /** The e-mail of the person, kept when the account is removed. */
   createdByEmail: text('created_by_email'),
   /** The amendment whose acceptance made this revision, once amendments exist. */
@@ -198,7 +198,8 @@ export const librarySelections = pgTable(
     /** id of a library_values row, or of a library_models row for cp. */
     valueId: uuid('value_id').notNull(),
     reason: text('reason').notNull(),
-    selectedBy: uuid('selected_by').references(() => users.id, { onDelete: 'set null' }),
+    // No foreign key, as for revisions: the library's history outlives accounts.
+    selectedBy: uuid('selected_by'),
     ...validity,
   },
   (t) => [
