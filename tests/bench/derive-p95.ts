@@ -16,25 +16,46 @@
  * - exactness: every route found must add up to the generator's true value exactly (fractions),
  *   and the headline (a floating-point combination when routes agree) must lie within 1e-9.
  *
+ * - the curators' consistency fit (`consistencyFit`) over 1,000 measured reactions of the same
+ *   library (target ≤ 1 s).
+ *
  * Run: npm run bench:derive   (= node --expose-gc --import tsx tests/bench/derive-p95.ts)
- * ROUNDS (default 3) timed rounds over every target; PROFILE_DIR=<dir> writes CPU profiles.
+ * ROUNDS (default 3) timed rounds over the targets; TARGETS (default 200) caps the targets of each
+ * kind (an evenly spaced sample; 0 = all); FIT_ROUNDS (default 5) timed fits; PROFILE_DIR=<dir>
+ * writes CPU profiles.
  */
 import Fraction from 'fraction.js';
 import {
   buildHessNetwork,
+  consistencyFit,
   deriveEnthalpy,
   deriveEnthalpyAsync,
+  type ConsistencyMeasurement,
   type Derivation,
+  type HeldValue,
   type HessNetwork,
   type InputInfo,
   type RouteSearchOptions,
 } from '@shared/chemistry/hess';
 import { defaultDeriveLimits } from '../../server/services/derive.service';
 import { heapMb, loadText, profiled, reportLine } from './fixtures/bench-report';
-import { generateHessLibrary, knownReactionsOf, type GeneratedHessLibrary } from './fixtures/generate-hess-library';
+import {
+  generateHessLibrary,
+  knownReactionsOf,
+  type GeneratedHessLibrary,
+  type GeneratedReaction,
+} from './fixtures/generate-hess-library';
 import { percentile } from './fixtures/species-search-measure';
 
 const ROUNDS = Number(process.env.ROUNDS ?? 3);
+const TARGETS = Number(process.env.TARGETS ?? 200);
+const FIT_ROUNDS = Number(process.env.FIT_ROUNDS ?? 5);
+/** At most TARGETS keys, evenly spaced over the list (all when TARGETS is 0). */
+const sample = (keys: readonly string[]): string[] => {
+  if (TARGETS <= 0 || keys.length <= TARGETS) return [...keys];
+  const step = keys.length / TARGETS;
+  return Array.from({ length: TARGETS }, (_, i) => keys[Math.floor(i * step)]!);
+};
 const now = () => performance.now();
 
 console.log(`load average at start: ${loadText()}`);
@@ -48,7 +69,12 @@ console.log(
 // ------------------------------------------------------------ first request after a new revision
 
 /** Known reactions from text and the network over them, timed apart; fresh objects each time. */
-function buildTimed(lib: GeneratedHessLibrary): { readMs: number; buildMs: number; network: HessNetwork; inputs: Map<string, InputInfo> } {
+function buildTimed(lib: GeneratedHessLibrary): {
+  readMs: number;
+  buildMs: number;
+  network: HessNetwork;
+  inputs: Map<string, InputInfo>;
+} {
   const t0 = now();
   const known = knownReactionsOf(lib);
   const t1 = now();
@@ -94,12 +120,17 @@ for (let round = 0; round < 3; round++) {
 const { network, inputs } = first;
 const many = library.unknown.main.filter((k) => library.byKey.get(k)!.reactions >= 20);
 const kinds: [string, string[], string?][] = [
-  ['reachable (main network)', library.unknown.main, 'p95 ≤ 50 ms'],
-  ['  of them in 20+ reactions (many routes)', many],
-  ['needs a second unknown (two-step)', library.unknown.twoStep],
-  ['unreachable: in no reaction', library.unknown.isolated],
-  ['unreachable: only through unknowns (trees)', library.unknown.tree],
+  ['reachable (main network)', sample(library.unknown.main), 'p95 ≤ 50 ms'],
+  ['  of them in 20+ reactions (many routes)', sample(many)],
+  ['needs a second unknown (two-step)', sample(library.unknown.twoStep)],
+  ['unreachable: in no reaction', sample(library.unknown.isolated)],
+  ['unreachable: only through unknowns (trees)', sample(library.unknown.tree)],
 ];
+console.log(
+  `\ntargets without ΔfH°: ${library.unknown.main.length} reachable (${many.length} of them in 20+ reactions), ` +
+    `${library.unknown.twoStep.length} two-step, ${library.unknown.isolated.length} isolated, ` +
+    `${library.unknown.tree.length} in trees of unknowns; timed: ${kinds.map(([, keys]) => keys.length).join(', ')}`,
+);
 
 interface Outcome {
   ms: number;
@@ -144,7 +175,7 @@ for (const [label, keys, goal] of kinds) {
 
 // The service's way: the same search in slices with a setImmediate pause between them.
 {
-  const keys = library.unknown.main;
+  const keys = kinds[0]![1];
   const samples: number[] = [];
   for (let round = 0; round < ROUNDS; round++)
     for (const key of keys) {
@@ -187,5 +218,77 @@ console.log(
     `${headlines} headline values, largest |headline − true| ${worstHeadline.toExponential(2)} kJ/mol ` +
     `(${[...basisCount].map(([b, n]) => `${b} ${n}`).join(', ')})`,
 );
-if (routesExact !== routesChecked || worstHeadline > 1e-9) console.log('  MISMATCH: a derived value differs from the truth');
+if (routesExact !== routesChecked || worstHeadline > 1e-9)
+  console.log('  MISMATCH: a derived value differs from the truth');
+// ------------------------------------------------------------ consistency fit
+
+const FIT_MEASUREMENTS = 1_000;
+/**
+ * A curator's group: species without ΔfH° of the main network, one after another, each bringing
+ * the measured reactions whose other species all have a ΔfH° or are in the group, until 1,000
+ * reactions link them. The other species are held at their values with their uncertainties (so
+ * the popular ones correlate many measurements). One measurement is corrupted by 10 σ.
+ */
+function fitGroup(size: number) {
+  const reactionsOf = new Map<string, GeneratedReaction[]>();
+  for (const r of library.reactions)
+    for (const t of r.terms) {
+      const list = reactionsOf.get(t.key);
+      if (list) list.push(r);
+      else reactionsOf.set(t.key, [r]);
+    }
+  const group = new Set<string>();
+  const chosen = new Set<GeneratedReaction>();
+  for (const key of library.unknown.main) {
+    group.add(key);
+    for (const r of reactionsOf.get(key) ?? [])
+      if (!chosen.has(r) && r.terms.every((t) => library.byKey.get(t.key)!.known || group.has(t.key))) chosen.add(r);
+    if (chosen.size >= size) break;
+  }
+  const picked = [...chosen].slice(0, size);
+  const fitted = [...group].filter((key) => picked.some((r) => r.terms.some((t) => t.key === key)));
+  const held = new Map<string, HeldValue>();
+  const measurements: ConsistencyMeasurement[] = picked.map((r, i) => {
+    for (const t of r.terms) {
+      const s = library.byKey.get(t.key)!;
+      if (s.known) held.set(t.key, { value: s.value.valueOf(), uncertainty: s.uncertainty });
+    }
+    return {
+      id: r.id,
+      label: r.id,
+      terms: r.terms.map((t) => ({ species: t.key, coefficient: new Fraction(t.coefficient) })),
+      deltaH: Number(r.deltaHText) + (i === Math.floor(size / 2) ? 10 * r.uncertainty : 0),
+      uncertainty: r.uncertainty,
+    };
+  });
+  return { fitted, measurements, held, corrupted: picked[Math.floor(size / 2)]!.id };
+}
+
+{
+  const { fitted, measurements, held, corrupted } = fitGroup(FIT_MEASUREMENTS);
+  console.log(
+    `\nconsistencyFit: ${fitted.length} species fitted to ${measurements.length} measured reactions, ` +
+      `${held.size} species held at their values (one measurement corrupted by 10 σ):`,
+  );
+  const samples: number[] = [];
+  let result = consistencyFit(fitted, measurements, held); // warm-up
+  await profiled('consistency fit', async () => {
+    for (let round = 0; round < FIT_ROUNDS; round++) {
+      const start = now();
+      result = consistencyFit(fitted, measurements, held);
+      samples.push(now() - start);
+    }
+  });
+  console.log(reportLine(`consistencyFit, ${measurements.length} reactions`, samples, '≤ 1 s'));
+  const flagged = result.residuals.filter((r) => r.flagged).map((r) => r.id);
+  const worst = Math.max(
+    ...result.fitted.map((f) => Math.abs(f.value - library.byKey.get(f.species)!.value.valueOf())),
+  );
+  console.log(
+    `${''.padEnd(44)} Birge ratio ${result.birgeRatio?.toFixed(2)}; flagged ${flagged.length} ` +
+      `(the corrupted one ${flagged.includes(corrupted) ? 'among them' : 'NOT among them'}); ` +
+      `largest |fitted − true| ${worst.toFixed(3)} kJ/mol`,
+  );
+}
+
 console.log(`\nload average at end: ${loadText()}`);
