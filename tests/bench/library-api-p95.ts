@@ -6,7 +6,9 @@
  *     and at 298.15 K;
  *   - POST /api/v1/reaction-heat, the same network scaled to 1 kg of methane at 1000 K;
  *   - GET /api/v1/species?q=…, formulas, name prefixes and names with one typo made from the
- *     seeded species themselves;
+ *     seeded species themselves; then again at 20,000 species (the seeded ones and generated ones,
+ *     tests/bench/fixtures/generate-species-library.ts, added as a new revision), with the first
+ *     search after that revision (which builds its snapshot and search index) timed apart;
  *   - GET /api/v1/health (one `select 1`): the floor of a request through the whole middleware
  *     stack, for comparison.
  *
@@ -14,19 +16,23 @@
  *
  *   npm run bench:library            (= node --expose-gc --import tsx tests/bench/library-api-p95.ts)
  *
- * REQUESTS (default 600) sets the number of timed requests per case; CASES=<word of a label> runs
+ * The seed step itself (revision 1 on the empty database) is timed at start-up.
+ * REQUESTS (default 600) sets the number of timed requests per case; SPECIES (default 20,000) the
+ * size of the larger library; CASES=<word of a label> runs
  * only the matching cases; PROFILE_DIR=<dir> writes a CPU profile of each case's timed requests
  * (read it with tests/bench/cpu-profile-summary.ts). Figures, never assertions.
  */
 import { reactionEnthalpyInputSchema, reactionEnthalpyResultSchema } from '@shared/schemas/reaction-enthalpy';
 import type { ServiceContext } from '../../server/context';
 import { readBalancedReaction } from '../../server/library/read-reaction';
-import { currentRevision } from '../../server/library/revisions';
+import { randomUUID } from 'node:crypto';
+import { librarySpecies } from '../../server/db/tables/index';
+import { currentRevision, withNewRevision } from '../../server/library/revisions';
 import { seedLibrary } from '../../server/library/seed-library';
 import { evaluateReactionEnthalpy } from '../../server/services/reaction-enthalpy.service';
 import { startTestApp } from '../server/helpers';
 import { loadText, profiled, reportLine, timeSequential } from './fixtures/bench-report';
-import { generateQueries } from './fixtures/generate-species-library';
+import { generateQueries, generateSpeciesLibrary } from './fixtures/generate-species-library';
 import type { SpeciesIndexEntry } from '@shared/search';
 
 const REQUESTS = Number(process.env.REQUESTS ?? 600);
@@ -62,7 +68,8 @@ async function post(path: string, body: unknown): Promise<Record<string, unknown
 async function get(pathAndQuery: string): Promise<Record<string, unknown>> {
   const res = await fetch(`${t.url}${pathAndQuery}`);
   const json = (await res.json()) as Record<string, unknown>;
-  if (res.status !== 200) throw new Error(`${pathAndQuery}: status ${res.status} ${JSON.stringify(json).slice(0, 400)}`);
+  if (res.status !== 200)
+    throw new Error(`${pathAndQuery}: status ${res.status} ${JSON.stringify(json).slice(0, 400)}`);
   return json;
 }
 
@@ -184,6 +191,69 @@ if (!only || 'breakdown'.includes(only)) {
     const used = process.cpuUsage(cpu);
     console.log(reportLine(label, samples));
     console.log(`${''.padEnd(44)} CPU ${((used.user + used.system) / 1000 / REQUESTS).toFixed(3)} ms/call`);
+  }
+}
+
+// ------------------------------------------------------------ search at 20,000 species
+
+const SIZE = Number(process.env.SPECIES ?? 20_000);
+const bigLabel = (kind: string) => `GET /species?q= at ${SIZE} (${kind})`;
+const bigKinds = ['formula, prefix, typo', 'formula only', 'prefix only', 'typo only'];
+if (bigKinds.some((kind) => !only || bigLabel(kind).includes(only))) {
+  // Generated species whose keys the seeded library does not hold, as one new revision (written
+  // straight into the species table: search reads nothing else of them).
+  const seededKeys = new Set(entries.map((e) => e.key));
+  const generated = generateSpeciesLibrary(SIZE)
+    .entries.filter((e) => !seededKeys.has(e.key))
+    .slice(0, SIZE - entries.length);
+  started = performance.now();
+  await withNewRevision(t.db, { kind: 'import', summary: 'Benchmark: generated species' }, async (tx, number) => {
+    for (let i = 0; i < generated.length; i += 1_000)
+      await tx.insert(librarySpecies).values(
+        generated.slice(i, i + 1_000).map((e) => ({
+          id: randomUUID(),
+          key: e.key,
+          formula: e.formula,
+          hill: e.hill,
+          charge: e.charge,
+          phase: e.phase,
+          descriptor: e.descriptor,
+          name: e.name,
+          synonyms: [...e.synonyms],
+          cas: e.cas,
+          inchikey: e.inchikey,
+          molarMass: 0, // not read by search
+          note: 'generated for a benchmark',
+          validFrom: number,
+        })),
+      );
+  });
+  console.log(
+    `\n${generated.length} generated species written as a new revision in ${(performance.now() - started).toFixed(0)} ms`,
+  );
+  started = performance.now();
+  const firstBig = (await get('/api/v1/species?q=benzene')) as { total: number };
+  console.log(
+    `first search after that revision (builds the snapshot and the search index): ` +
+      `${(performance.now() - started).toFixed(0)} ms  load ${loadText()}`,
+  );
+  const all = [...entries, ...generated];
+  const bigQueries = generateQueries(all, 100, 13);
+  const total = ((await get('/api/v1/species?limit=1')) as { total: number }).total;
+  console.log(
+    `species search: ${total} species in the library, ${bigQueries.length} queries (${firstBig.total} hits for benzene)`,
+  );
+  for (const kind of bigKinds) {
+    const label = bigLabel(kind);
+    if (only && !label.includes(only)) continue;
+    const some = kind.endsWith('only') ? bigQueries.filter((q) => kind.startsWith(q.kind)) : bigQueries;
+    const call = (i: number) => get(`/api/v1/species?q=${encodeURIComponent(some[i % some.length]!.text)}`);
+    for (let i = 0; i < WARMUP; i++) await call(i);
+    const cpu = process.cpuUsage();
+    const samples = await profiled(label, () => timeSequential(REQUESTS, async (i) => void (await call(i))));
+    const used = process.cpuUsage(cpu);
+    console.log(reportLine(label, samples, 'p95 ≤ 20 ms'));
+    console.log(`${''.padEnd(44)} CPU ${((used.user + used.system) / 1000 / REQUESTS).toFixed(2)} ms/request`);
   }
 }
 
