@@ -232,7 +232,8 @@ const FIT_MEASUREMENTS = 1_000;
  * A curator's group: species without ΔfH° of the main network, one after another, each bringing
  * the measured reactions whose other species all have a ΔfH° or are in the group, until 1,000
  * reactions link them. The other species are held at their values with their uncertainties (so
- * the popular ones correlate many measurements). One measurement is corrupted by 10 σ.
+ * the popular ones correlate many measurements). One measurement is off by ten of its standard
+ * deviations (its own u and those of the held values it rests on).
  */
 function fitGroup(size: number) {
   const reactionsOf = new Map<string, GeneratedReaction[]>();
@@ -253,30 +254,36 @@ function fitGroup(size: number) {
   const picked = [...chosen].slice(0, size);
   const fitted = [...group].filter((key) => picked.some((r) => r.terms.some((t) => t.key === key)));
   const held = new Map<string, HeldValue>();
+  const corruptAt = Math.floor(size / 2);
   const measurements: ConsistencyMeasurement[] = picked.map((r, i) => {
+    // The measurement's whole standard deviation: its own u and the held values' it rests on.
+    let variance = r.uncertainty ** 2;
     for (const t of r.terms) {
       const s = library.byKey.get(t.key)!;
-      if (s.known) held.set(t.key, { value: s.value.valueOf(), uncertainty: s.uncertainty });
+      if (!s.known) continue;
+      held.set(t.key, { value: s.value.valueOf(), uncertainty: s.uncertainty });
+      variance += (Number(new Fraction(t.coefficient)) * s.uncertainty) ** 2;
     }
     return {
       id: r.id,
       label: r.id,
       terms: r.terms.map((t) => ({ species: t.key, coefficient: new Fraction(t.coefficient) })),
-      deltaH: Number(r.deltaHText) + (i === Math.floor(size / 2) ? 10 * r.uncertainty : 0),
+      deltaH: Number(r.deltaHText) + (i === corruptAt ? 10 * Math.sqrt(variance) : 0),
       uncertainty: r.uncertainty,
     };
   });
-  return { fitted, measurements, held, corrupted: picked[Math.floor(size / 2)]!.id };
+  return { fitted, measurements, held, corrupted: picked[corruptAt]!.id };
 }
 
 {
   const { fitted, measurements, held, corrupted } = fitGroup(FIT_MEASUREMENTS);
   console.log(
     `\nconsistencyFit: ${fitted.length} species fitted to ${measurements.length} measured reactions, ` +
-      `${held.size} species held at their values (one measurement corrupted by 10 σ):`,
+      `${held.size} species held at their values (one measurement off by 10 of its standard deviations):`,
   );
   const samples: number[] = [];
   let result = consistencyFit(fitted, measurements, held); // warm-up
+  const cpu = process.cpuUsage();
   await profiled('consistency fit', async () => {
     for (let round = 0; round < FIT_ROUNDS; round++) {
       const start = now();
@@ -284,7 +291,9 @@ function fitGroup(size: number) {
       samples.push(now() - start);
     }
   });
+  const used = process.cpuUsage(cpu);
   console.log(reportLine(`consistencyFit, ${measurements.length} reactions`, samples, '≤ 1 s'));
+  console.log(`${''.padEnd(44)} CPU ${((used.user + used.system) / 1000 / FIT_ROUNDS).toFixed(0)} ms/fit`);
   const flagged = result.residuals.filter((r) => r.flagged).map((r) => r.id);
   const worst = Math.max(
     ...result.fitted.map((f) => Math.abs(f.value - library.byKey.get(f.species)!.value.valueOf())),

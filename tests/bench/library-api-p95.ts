@@ -66,7 +66,8 @@ async function post(path: string, body: unknown): Promise<Record<string, unknown
 }
 
 async function get(pathAndQuery: string): Promise<Record<string, unknown>> {
-  const res = await fetch(`${t.url}${pathAndQuery}`);
+  // A kept-alive connection the server closed while idle (5 s) fails once: send it again.
+  const res = await fetch(`${t.url}${pathAndQuery}`).catch(() => fetch(`${t.url}${pathAndQuery}`));
   const json = (await res.json()) as Record<string, unknown>;
   if (res.status !== 200)
     throw new Error(`${pathAndQuery}: status ${res.status} ${JSON.stringify(json).slice(0, 400)}`);
