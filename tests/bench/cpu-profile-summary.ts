@@ -55,7 +55,8 @@ for (const [id, us] of self) {
   const where = place(n.callFrame.url);
   selfByFile.set(where, (selfByFile.get(where) ?? 0) + us);
 }
-const pct = (us: number) => `${((100 * us) / total).toFixed(1).padStart(5)} %  ${(us / 1000).toFixed(0).padStart(6)} ms`;
+const pct = (us: number) =>
+  `${((100 * us) / total).toFixed(1).padStart(5)} %  ${(us / 1000).toFixed(0).padStart(6)} ms`;
 const show = (title: string, map: Map<string, number>) => {
   console.log(`\n${title}`);
   for (const [k, us] of [...map].sort((a, b) => b[1] - a[1]).slice(0, top)) console.log(`${pct(us)}  ${k}`);
