@@ -135,6 +135,12 @@ const fractionOf = (value: SmallRational | Fraction): Fraction =>
 const numberOf = (value: SmallRational | Fraction): number =>
   value instanceof Fraction ? value.valueOf() : value[0] / value[1];
 
+/**
+ * By default the search stops, once a number of reactions per route is done, when it holds this
+ * many times `maxRoutes` routes whose every uncertainty is stated (see `RouteSearchOptions`).
+ */
+export const ENOUGH_ROUTES_PER_ROUTE_ASKED = 4;
+
 /** Subsets of `items` in order of size, smallest first (the empty set first). */
 function* subsetsBySize<T>(items: readonly T[]): Generator<T[]> {
   for (let size = 0; size <= items.length; size++) yield* combinations(items, size, 0);
@@ -367,12 +373,21 @@ function* routeSearch(
     return { steps, deltaH, weights, uncertainty, missing };
   };
 
-  // A generator so that a caller can pause between slices of work (see findRoutesAsync).
-  function* search(chosen: number[], openTarget: ReadonlySet<string>, openKey: string): Generator<void, void, void> {
-    if (stop()) return;
-    if ((examined & 127) === 127) yield;
+  /** A combination examined and found open, with the reactions that may extend it (ranked). */
+  interface Expandable {
+    chosen: number[];
+    openTarget: ReadonlySet<string>;
+    openKey: string;
+    candidates: number[];
+  }
+
+  /**
+   * Examines one combination: records it when it adds up to the target; returns the reactions
+   * that may extend it when it is still open and may grow, null otherwise.
+   */
+  const examine = (chosen: number[], openTarget: ReadonlySet<string>, openKey: string): number[] | null => {
     const key = `${openKey}#${[...chosen].sort((a, b) => a - b).join(',')}`;
-    if (visited.has(key)) return;
+    if (visited.has(key)) return null;
     visited.add(key);
     examined++;
     // Species that must cancel exactly: open target species, and every species without a ΔfH°.
@@ -382,12 +397,12 @@ function* routeSearch(
     const rows = [...open];
     const columns = chosen.map(vectorAt);
     const solution = solveExact(rows, columns, targetVector);
-    if (solution === 'dependent') return;
+    if (solution === 'dependent') return null;
     if (solution) {
       record(chosen, solution);
-      return;
+      return null;
     }
-    if (chosen.length >= options.maxSteps) return;
+    if (chosen.length >= options.maxSteps) return null;
     // Expand the species with the fewest ways to cancel among those that appear only once.
     const appearances = new Map<string, number>();
     for (const species of rows) {
@@ -413,25 +428,65 @@ function* routeSearch(
         fewest = count;
       }
     }
-    if (nextSpecies === undefined) return;
+    if (nextSpecies === undefined) return null;
     if (fewest === 0) {
       deadEnds.add(nextSpecies);
-      return;
+      return null;
     }
     const candidates = (network.bySpecies.get(nextSpecies) ?? []).filter((index) => !chosen.includes(index));
-    const ordered = candidates.sort((a, b) => uncertaintyRank(a) - uncertaintyRank(b) || a - b);
-    for (const index of ordered) {
-      yield* search([...chosen, index], openTarget, openKey);
-      if (stoppedBy) return;
-    }
-  }
+    return candidates.sort((a, b) => uncertaintyRank(a) - uncertaintyRank(b) || a - b);
+  };
 
-  // First every target species with a ΔfH° closed by it (the tabulated route), then with one,
+  // Routes whose every input states its uncertainty rank first, so only they count towards
+  // having enough routes: a route lacking an uncertainty never stops the search early.
+  const enoughRoutes = options.enoughRoutes ?? ENOUGH_ROUTES_PER_ROUTE_ASKED * options.maxRoutes;
+  const statedRoutes = () => {
+    let count = 0;
+    for (const found of routes.values()) if (found.missing.length === 0) count++;
+    return count;
+  };
+  /** Every combination of up to this many measured or given reactions has been examined. */
+  let completeUpTo = -1;
+
+  // By number of measured or given reactions: every combination of k reactions is examined before
+  // any of k + 1, so the short, well-determined routes are found first. The tree is the one a
+  // depth-first walk explores (a combination's extensions depend only on its reactions), so the
+  // routes of up to k reactions found here are exactly those a complete search finds.
+  // Level 0: every target species with a ΔfH° closed by it (the tabulated route), then with one,
   // two… of them derived through measured reactions instead: independent routes to compare.
   const closableTarget = [...targetVector.keys()].filter(closable).sort();
+  let level: Expandable[] = [];
   for (const openTarget of subsetsBySize(closableTarget)) {
-    yield* search([], new Set(openTarget), [...openTarget].sort().join(','));
-    if (stoppedBy) break;
+    if (stop()) break;
+    const set = new Set(openTarget);
+    const openKey = [...openTarget].sort().join(',');
+    const candidates = examine([], set, openKey);
+    if (candidates) level.push({ chosen: [], openTarget: set, openKey, candidates });
+  }
+  if (!stoppedBy) completeUpTo = 0;
+  for (let size = 1; !stoppedBy; size++) {
+    if (level.length === 0) {
+      completeUpTo = options.maxSteps; // nothing left to extend: the search is complete
+      break;
+    }
+    // Enough routes of up to size − 1 reactions: stop before the longer ones, and say so.
+    if (statedRoutes() >= enoughRoutes) {
+      stoppedBy = 'routes';
+      break;
+    }
+    const next: Expandable[] = [];
+    for (const parent of level) {
+      for (const index of parent.candidates) {
+        if (stop()) break;
+        if ((examined & 127) === 127) yield;
+        const chosen = [...parent.chosen, index];
+        const candidates = examine(chosen, parent.openTarget, parent.openKey);
+        if (candidates) next.push({ chosen, openTarget: parent.openTarget, openKey: parent.openKey, candidates });
+      }
+      if (stoppedBy) break;
+    }
+    if (!stoppedBy) completeUpTo = size;
+    level = next;
   }
 
   const ranked = [...routes.values()].sort(compareRanking);
@@ -442,6 +497,7 @@ function* routeSearch(
     examined,
     found: ranked.length,
     stoppedBy,
+    completeUpTo,
     unreachable,
     rejectedMixedConventions,
   };
