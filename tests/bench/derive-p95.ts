@@ -6,7 +6,8 @@
  *   server/library/network.ts does) and `buildHessNetwork`, for the benchmark library and for one
  *   of 30,000 known reactions;
  * - `deriveEnthalpy` of the formation of species without a ΔfH°, with the server's bounds
- *   (derive.service.ts: maxSteps 6, maxExamined 20,000, maxRoutes 5, 2 s time budget):
+ *   (derive.service.ts: maxSteps 6, maxExamined 20,000, maxRoutes 5, 2 s time budget, and the search
+ *   stops after the step count that gave 4 × maxRoutes routes with stated uncertainties):
  *   p50/p95/p99 per kind of target — reachable species of the main network (target p95 ≤ 50 ms),
  *   those of them in 20 or more reactions (many routes to rank), species whose every route needs
  *   a second unknown, and the unreachable: species in no reaction, and species reachable only
@@ -22,7 +23,8 @@
  * Run: npm run bench:derive   (= node --expose-gc --import tsx tests/bench/derive-p95.ts)
  * ROUNDS (default 1) timed rounds over the targets; TARGETS (default 60) caps the targets of each
  * kind (an evenly spaced sample; 0 = all); MAX_EXAMINED replaces the server's bound on combinations
- * examined (to see what another bound would give); FIT_ROUNDS (default 5) timed fits; PROFILE_DIR=<dir>
+ * examined (to see what another bound would give); ENOUGH_ROUTES (default 20 = 4 × maxRoutes;
+ * Infinity: no early stop) the routes after which longer ones are not searched; FIT_ROUNDS (default 5) timed fits; PROFILE_DIR=<dir>
  * writes CPU profiles.
  */
 import Fraction from 'fraction.js';
@@ -52,6 +54,8 @@ const ROUNDS = Number(process.env.ROUNDS ?? 1);
 const TARGETS = Number(process.env.TARGETS ?? 60);
 /** The server's bound on combinations examined, or another to compare (MAX_EXAMINED). */
 const MAX_EXAMINED = Number(process.env.MAX_EXAMINED ?? defaultDeriveLimits.maxExamined);
+// Routes with stated uncertainties after which longer routes are not searched ("Infinity": only the bounds stop it).
+const ENOUGH_ROUTES = Number(process.env.ENOUGH_ROUTES ?? defaultDeriveLimits.enoughRoutesPerRouteAsked * 5);
 const FIT_ROUNDS = Number(process.env.FIT_ROUNDS ?? 5);
 /** At most TARGETS keys, evenly spaced over the list (all when TARGETS is 0). */
 const sample = (keys: readonly string[]): string[] => {
@@ -91,6 +95,7 @@ const options = (): RouteSearchOptions => {
     maxSteps: defaultDeriveLimits.maxSteps,
     maxExamined: MAX_EXAMINED,
     maxRoutes: 5,
+    enoughRoutes: ENOUGH_ROUTES,
     outOfTime: () => Date.now() - start > defaultDeriveLimits.timeBudgetMs,
   };
 };
@@ -151,7 +156,7 @@ function runAll(keys: readonly string[]): Outcome[] {
 for (const [, keys] of kinds) runAll(keys.filter((_, i) => i % 5 === 0));
 
 console.log(
-  `\nderiveEnthalpy, ${ROUNDS} round(s) over the targets, at most ${MAX_EXAMINED} combinations examined (ms per derivation, wall clock):`,
+  `\nderiveEnthalpy, ${ROUNDS} round(s) over the targets, at most ${MAX_EXAMINED} combinations examined, enough at ${ENOUGH_ROUTES} routes (ms per derivation, wall clock):`,
 );
 const lastRound = new Map<string, Outcome[]>();
 for (const [label, keys, goal] of kinds) {
@@ -168,13 +173,14 @@ for (const [label, keys, goal] of kinds) {
   const outcomes = lastRound.get(label)!;
   const examined = outcomes.map((o) => o.derivation.search.examined);
   const found = outcomes.map((o) => o.derivation.search.found);
-  const stopped = outcomes.filter((o) => o.derivation.search.stoppedBy).length;
+  const stoppedBy = (why: string) => outcomes.filter((o) => o.derivation.search.stoppedBy === why).length;
+  const stopped = stoppedBy('examined') + stoppedBy('time');
   const derived = outcomes.filter((o) => o.derivation.status === 'derived').length;
   console.log(reportLine(`${label} (${keys.length})`, samples, goal));
   console.log(
     `${''.padEnd(44)} CPU ${((used.user + used.system) / 1000 / samples.length).toFixed(2)} ms/derivation; ` +
       `derived ${derived}/${keys.length}; examined p50 ${percentile(examined, 50)} max ${Math.max(...examined)}; ` +
-      `routes found p50 ${percentile(found, 50)} max ${Math.max(...found)}; stopped by a bound ${stopped}`,
+      `routes found p50 ${percentile(found, 50)} max ${Math.max(...found)}; stopped by a bound ${stopped}; stopped with enough routes ${stoppedBy('routes')}`,
   );
 }
 
