@@ -9,6 +9,7 @@ import {
 import {
   buildHessNetwork,
   deriveEnthalpyAsync,
+  ENOUGH_ROUTES_PER_ROUTE_ASKED,
   extendHessNetwork,
   type Derivation,
   type HessNetwork,
@@ -36,9 +37,34 @@ export interface DeriveLimits {
   maxSteps: number;
   maxExamined: number;
   timeBudgetMs: number;
+  /** Routes with every uncertainty stated, per route asked, after which longer routes are not searched. */
+  enoughRoutesPerRouteAsked: number;
 }
 
-export const defaultDeriveLimits: DeriveLimits = { maxSteps: 6, maxExamined: 20_000, timeBudgetMs: 2_000 };
+export const defaultDeriveLimits: DeriveLimits = {
+  maxSteps: 6,
+  maxExamined: 20_000,
+  timeBudgetMs: 2_000,
+  enoughRoutesPerRouteAsked: ENOUGH_ROUTES_PER_ROUTE_ASKED,
+};
+
+/** Why the search stopped early, in words (null when it ran to the end). */
+export function searchStopWarning(search: Derivation['search'], maxRoutes: number): Warning | null {
+  const { stoppedBy, examined, found, completeUpTo } = search;
+  if (!stoppedBy) return null;
+  const reactions = (k: number) => `${k} measured or given reaction${k === 1 ? '' : 's'}`;
+  if (stoppedBy === 'routes')
+    return {
+      code: 'search_stopped',
+      message: `The search stopped after ${found} route(s) of up to ${reactions(completeUpTo)} each (enough to rank the ${maxRoutes} asked for): longer routes were not examined, so there may be more routes than shown.`,
+    };
+  const bound = stoppedBy === 'time' ? 'time budget' : 'examination limit';
+  const covered = completeUpTo >= 1 ? ` Every route of up to ${reactions(completeUpTo)} was examined.` : '';
+  return {
+    code: 'search_stopped',
+    message: `The search stopped after examining ${examined} combinations (${bound}) with ${found} route(s) found: there may be more routes than shown.${covered}`,
+  };
+}
 
 type Warning = DeriveResult['warnings'][number];
 
@@ -313,6 +339,7 @@ export async function runDerivation(ctx: ServiceContext, input: DeriveInput): Pr
       'The target holds only elements in their reference states: its ΔH is 0 by convention.',
     );
 
+  const maxRoutes = input.maxRoutes ?? 5;
   const started = Date.now();
   // The search runs in slices with a pause between them, so other requests are answered meanwhile.
   const derivation = await deriveEnthalpyAsync(
@@ -321,17 +348,15 @@ export async function runDerivation(ctx: ServiceContext, input: DeriveInput): Pr
     inputs,
     {
       maxSteps: limits.maxSteps,
-      maxRoutes: input.maxRoutes ?? 5,
+      maxRoutes,
       maxExamined: limits.maxExamined,
+      enoughRoutes: limits.enoughRoutesPerRouteAsked * maxRoutes,
       outOfTime: () => Date.now() - started > limits.timeBudgetMs,
     },
     () => new Promise<void>((resolve) => setImmediate(resolve)),
   );
-  if (derivation.search.stoppedBy)
-    warnings.push({
-      code: 'search_stopped',
-      message: `The search stopped after examining ${derivation.search.examined} combinations (${derivation.search.stoppedBy === 'time' ? 'time budget' : 'examination limit'}) with ${derivation.search.found} route(s) found: there may be more routes than shown.`,
-    });
+  const stopWarning = searchStopWarning(derivation.search, maxRoutes);
+  if (stopWarning) warnings.push(stopWarning);
   if (derivation.search.rejectedMixedConventions > 0)
     warnings.push({
       code: 'mixed_conventions',

@@ -87,7 +87,7 @@ export const deriveResultSchema = z.object({
   search: z.object({
     examined: z.number().int(),
     found: z.number().int(),
-    stoppedBy: z.enum(['examined', 'time']).nullable(),
+    stoppedBy: z.enum(['examined', 'time', 'routes']).nullable(),
   }),
   libraryRevision: z.number().int(),
   warnings: z.array(warningSchema),

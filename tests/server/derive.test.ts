@@ -38,6 +38,33 @@ describe('POST /api/v1/derive', () => {
     ]);
   });
 
+  it('stops once it holds enough short routes, and says in words that longer ones were not examined', async () => {
+    // An invented scenario: four repeated combustions of graphite (each a one-reaction route to
+    // CO2) and a two-reaction route through CO. With one route asked, four stated routes are enough.
+    const combustion = (value: number) => ({ equation: 'C(s) + O2(g) -> CO2(g)', deltaH: { value, uncertainty: 0.2 } });
+    const res = await derive({
+      target: 'C(s) + O2(g) -> CO2(g)',
+      using: 'given',
+      maxRoutes: 1,
+      reactions: [
+        combustion(-393.4),
+        combustion(-393.5),
+        combustion(-393.6),
+        combustion(-393.5),
+        { equation: 'C(s) + 1/2 O2(g) -> CO(g)', deltaH: { value: -110.5, uncertainty: 0.2 } },
+        { equation: 'CO(g) + 1/2 O2(g) -> CO2(g)', deltaH: { value: -283.0, uncertainty: 0.2 } },
+      ],
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.search.stoppedBy).toBe('routes');
+    expect(res.body.search.found).toBe(4);
+    expect(res.body.routes).toHaveLength(1);
+    expect(res.body.routes[0].steps).toHaveLength(1);
+    const warning = res.body.warnings.find((w: { code: string }) => w.code === 'search_stopped');
+    expect(warning.message).toContain('stopped after 4 route(s) of up to 1 measured or given reaction each');
+    expect(warning.message).toContain('longer routes were not examined');
+  });
+
   it('reads kcal/mol exactly (4.184 J per thermochemical calorie)', async () => {
     const res = await derive({
       target: 'C(s) + 1/2 O2(g) -> CO(g)',

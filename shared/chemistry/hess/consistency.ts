@@ -1,4 +1,11 @@
-import { backSolve, cholesky, forwardSolve, inverseFromCholesky, NotPositiveDefiniteError } from './linear';
+import {
+  backSolve,
+  cholesky,
+  forwardSolve,
+  forwardSolveMany,
+  inverseFromCholesky,
+  NotPositiveDefiniteError,
+} from './linear';
 import type { SignedTerm } from './types';
 
 /**
@@ -129,13 +136,10 @@ export function consistencyFit(
   const diagonal = Array.from({ length: n }, (_, i) => C[i * n + i]!);
   cholesky(C, n);
   // Whitened design and data: Ã = L⁻¹A, b̃ = L⁻¹b′.
+  const whitenedA = Float64Array.from(A);
+  forwardSolveMany(C, n, whitenedA, p);
   const At = new Float64Array(p * n); // column j of Ã stored as row j
-  const columnBuffer = new Float64Array(n);
-  for (let j = 0; j < p; j++) {
-    for (let i = 0; i < n; i++) columnBuffer[i] = A[i * p + j]!;
-    forwardSolve(C, n, columnBuffer);
-    At.set(columnBuffer, j * n);
-  }
+  for (let i = 0; i < n; i++) for (let j = 0; j < p; j++) At[j * n + i] = whitenedA[i * p + j]!;
   const bw = Float64Array.from(b);
   forwardSolve(C, n, bw);
   const N = new Float64Array(p * p);

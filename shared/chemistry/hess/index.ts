@@ -19,7 +19,7 @@ export type {
 } from './types';
 export { buildHessNetwork, extendHessNetwork } from './network';
 export type { HessNetwork, NetworkSpecies } from './network';
-export { findRoutes, findRoutesAsync, compareRoutes } from './routes';
+export { findRoutes, findRoutesAsync, compareRoutes, ENOUGH_ROUTES_PER_ROUTE_ASKED } from './routes';
 export { routeWeights, routeUncertainty, routeCovariance } from './covariance';
 export { combineRoutes, AGREEMENT_SIGNIFICANCE, ROUTE_FLAG_SIGMAS } from './combine';
 export type { RouteCombination } from './combine';

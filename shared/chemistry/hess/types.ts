@@ -93,12 +93,19 @@ export interface RouteSearchOptions {
   maxRoutes: number;
   /** Combinations examined before the search stops. */
   maxExamined: number;
+  /**
+   * Enough routes: the search runs by number of measured or given reactions per route, and once
+   * it has examined every combination of k reactions and holds at least this many routes whose
+   * every uncertainty is stated, it does not go on to k + 1 (stoppedBy 'routes'). Default
+   * `ENOUGH_ROUTES_PER_ROUTE_ASKED` × `maxRoutes`; `Infinity` searches up to the other bounds.
+   */
+  enoughRoutes?: number;
   /** Returns true when the time budget is spent. */
   outOfTime: () => boolean;
 }
 
 /** Why a search stopped early, if it did. */
-export type SearchStop = 'examined' | 'time' | null;
+export type SearchStop = 'examined' | 'time' | 'routes' | null;
 
 export interface RouteSearchResult {
   routes: Route[];
@@ -106,8 +113,16 @@ export interface RouteSearchResult {
   examined: number;
   /** Routes found before ranking and truncation to `maxRoutes`. */
   found: number;
-  /** Set when a bound stopped the search: there may be more routes than shown. */
+  /**
+   * Set when the search stopped early: a bound ('examined', 'time'), or enough routes in hand
+   * ('routes'; longer routes not examined). Either way there may be more routes than shown.
+   */
   stoppedBy: SearchStop;
+  /**
+   * Every combination of up to this many measured or given reactions was examined (−1 when not
+   * even the target's own tabulated closure was); `maxSteps` when the search is complete.
+   */
+  completeUpTo: number;
   /**
    * Species that no known reaction reaches (no ΔfH° and in no usable reaction), when no route
    * was found.

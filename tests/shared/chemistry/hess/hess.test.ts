@@ -250,6 +250,111 @@ describe('findRoutes — generated networks with known true values', () => {
   });
 });
 
+describe('findRoutes — stopping once enough routes are in hand', () => {
+  // An invented network: X(g) has no ΔfH°; three measured reactions X → A_i close it in one step
+  // (A_i have a ΔfH°), and a chain X → Y → B closes it in two (Y has no ΔfH°), with the smallest
+  // uncertainty of all, so a complete search ranks it first.
+  const oneStep = (i: number, u: number | null) =>
+    reaction(`measured:x-a${i}`, 'measured', { 'X(g)': -1, [`A${i}(g)`]: 1 }, `${10 + i}`, u);
+  const network = (u: number | null, direct = 3) => {
+    const known = [
+      ...Array.from({ length: direct }, (_, i) => formation(`A${i}(g)`, `${-20 - i}`, 0.5)),
+      formation('B(g)', '-5', 0.01),
+      ...Array.from({ length: direct }, (_, i) => oneStep(i, u)),
+      reaction('measured:x-y', 'measured', { 'X(g)': -1, 'Y(g)': 1 }, '1', 0.01),
+      reaction('measured:y-b', 'measured', { 'Y(g)': -1, 'B(g)': 1 }, '2', 0.01),
+    ];
+    return { known, network: buildHessNetwork(known, noSpeciesInfo) };
+  };
+  const measuredSteps = (route: { steps: { reaction: KnownReaction }[] }) =>
+    route.steps.filter((s) => s.reaction.kind !== 'formation').length;
+
+  it('stops after the step count that gave enough routes, says so, and returns the shortest routes', () => {
+    const { known, network: net } = network(1);
+    const result = findRoutes(net, target({ 'X(g)': 1 }), inputsOf(known), options({ enoughRoutes: 2 }));
+    expect(result.stoppedBy).toBe('routes');
+    expect(result.completeUpTo).toBe(1);
+    expect(result.found).toBe(3);
+    expect(result.routes.map(measuredSteps)).toEqual([1, 1, 1]);
+    // Hand-summed: X = A_i − (X → A_i), so ΔfH°(X) = ΔfH°(A_i) − ΔH_i = −30, −32, −34 kJ/mol.
+    expect(result.routes.map((r) => r.deltaH.toFraction()).sort()).toEqual(['-30', '-32', '-34']);
+  });
+
+  it('finds the longer route when not stopped early, ranked first by its uncertainty', () => {
+    const { known, network: net } = network(1);
+    const result = findRoutes(net, target({ 'X(g)': 1 }), inputsOf(known), options({ enoughRoutes: Infinity }));
+    expect(result.stoppedBy).toBeNull();
+    expect(result.completeUpTo).toBe(6);
+    expect(result.found).toBe(4);
+    // X = B − (Y → B) − (X → Y): −5 − 2 − 1 = −8 kJ/mol.
+    expect(measuredSteps(result.routes[0]!)).toBe(2);
+    expect(result.routes[0]!.deltaH.equals(F(-8))).toBe(true);
+  });
+
+  it('counts towards enough only routes whose every uncertainty is stated', () => {
+    const { known, network: net } = network(null);
+    const result = findRoutes(net, target({ 'X(g)': 1 }), inputsOf(known), options({ enoughRoutes: 2 }));
+    expect(result.stoppedBy).toBeNull();
+    expect(result.found).toBe(4);
+  });
+
+  it('defaults to four times the routes asked for', () => {
+    // maxRoutes = 1: four stated routes of one step are enough, three are not.
+    const three = network(1, 3);
+    expect(
+      findRoutes(three.network, target({ 'X(g)': 1 }), inputsOf(three.known), options({ maxRoutes: 1 })).stoppedBy,
+    ).toBeNull();
+    const four = network(1, 4);
+    const result = findRoutes(four.network, target({ 'X(g)': 1 }), inputsOf(four.known), options({ maxRoutes: 1 }));
+    expect(result.stoppedBy).toBe('routes');
+    expect(result.found).toBe(4);
+    expect(result.routes).toHaveLength(1);
+  });
+
+  it('does not claim to have stopped when nothing longer was left to examine', () => {
+    const known = [formation('A0(g)', '-20', 0.5), formation('A1(g)', '-21', 0.5), oneStep(0, 1), oneStep(1, 1)];
+    const net = buildHessNetwork(known, noSpeciesInfo);
+    const result = findRoutes(net, target({ 'X(g)': 1 }), inputsOf(known), options({ enoughRoutes: 1 }));
+    expect(result.stoppedBy).toBeNull();
+    expect(result.found).toBe(2);
+  });
+
+  it('finds, when it stops at k reactions, exactly the routes of up to k reactions a complete search finds', () => {
+    let stopped = 0;
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 10_000 }), fc.integer({ min: 1, max: 6 }), (seed, enough) => {
+        const { unknown, known } = generatedNetwork(seed);
+        const net = buildHessNetwork(known, noSpeciesInfo);
+        const inputs = inputsOf(known);
+        const key = (route: { steps: { reaction: KnownReaction; multiplier: Fraction }[] }) =>
+          route.steps
+            .map((s) => `${s.reaction.id}*${s.multiplier.toFraction()}`)
+            .sort()
+            .join(' ');
+        for (const species of unknown) {
+          const all = options({ maxSteps: 3, maxRoutes: 10_000 });
+          const full = findRoutes(net, target({ [species]: 1 }), inputs, { ...all, enoughRoutes: Infinity });
+          const early = findRoutes(net, target({ [species]: 1 }), inputs, { ...all, enoughRoutes: enough });
+          if (early.stoppedBy === null) {
+            expect(early.found).toBe(full.found);
+            continue;
+          }
+          expect(early.stoppedBy).toBe('routes');
+          stopped++;
+          expect(early.found).toBeGreaterThanOrEqual(enough);
+          const shortest = full.routes
+            .filter((r) => measuredSteps(r) <= early.completeUpTo)
+            .map(key)
+            .sort();
+          expect(early.routes.map(key).sort()).toEqual(shortest);
+        }
+      }),
+      { numRuns: 15 },
+    );
+    expect(stopped).toBeGreaterThan(0); // the early stop was exercised, not only complete searches
+  });
+});
+
 /** Whether `species` alone (the target) lies in the span of the reactions' vectors (Gram–Schmidt). */
 function spans(reactions: KnownReaction[], species: string): boolean {
   const keys = [...new Set(reactions.flatMap((r) => r.terms.map((t) => t.species)).concat(species))];
