@@ -128,6 +128,11 @@ async function runImport(
   if (report.problems.length === 0) {
     // Every row parsed: check them against the library as the amendment will, and name all problems by row.
     const snapshot = await snapshotFor(ctx.library);
+    // A source row whose key the library has corrects that source (set-source names it by id).
+    const sourceIds = new Map([...snapshot.sources.values()].map((s) => [s.key, s.id]));
+    converted.entries = converted.entries.map((e) =>
+      e.kind === 'set-source' && !e.id && sourceIds.has(e.source.key) ? { ...e, id: sourceIds.get(e.source.key)! } : e,
+    );
     const plan = planEntries({
       snapshot,
       entries: converted.entries,

@@ -64,6 +64,10 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/amendments': 'signed_in',
   'GET /api/v1/amendments/counts': 'signed_in',
   'POST /api/v1/amendments': 'proposer',
+  'POST /api/v1/amendments/imports': 'proposer',
+  'GET /api/v1/amendments/imports/:jobId': 'proposer',
+  'GET /api/v1/library/export.json': 'public',
+  'GET /api/v1/library/export.csv': 'public',
   'GET /api/v1/amendments/:amendmentId': 'signed_in',
   'PUT /api/v1/amendments/:amendmentId': 'proposer',
   'POST /api/v1/amendments/:amendmentId/open': 'proposer',
@@ -140,7 +144,7 @@ function urlFor(route: AnyRoute): string {
   const path = route.path
     .replace(':teamId', t.ids.teams.kestrel)
     .replace(':token', 'x'.repeat(43))
-    .replace(/:(userId|noteId|invitationId|tokenId|amendmentId|fileId|runId)/g, () => randomUUID());
+    .replace(/:(userId|noteId|invitationId|tokenId|amendmentId|fileId|runId|jobId)/g, () => randomUUID());
   return `/api/v1${path}`;
 }
 
