@@ -320,7 +320,6 @@ export function exportToTables(file: string, data: LibraryExport): ReadTable[] {
     rows: rows.map((cells) => ({ line: null as unknown as number, cells })),
     problems: [],
   });
-  const selected = new Set(data.selections.map((s) => `${s.species}|${s.property}|${s.source}`));
   return [
     table(
       ['key', 'kind', 'authors', 'title', 'publication', 'year', 'volume', 'pages', 'doi', 'isbn', 'url', 'note'],
@@ -368,7 +367,8 @@ export function exportToTables(file: string, data: LibraryExport): ReadTable[] {
         pressure_bar: text(v.pressureBar),
         ion_convention: text(v.ionConvention),
         note: text(v.provenanceNote),
-        selected: selected.has(`${v.species}|${v.property}|${v.source}`) ? 'yes' : 'no',
+        // Selections come from the selections table, with their reasons.
+        selected: 'no',
       })),
     ),
     table(

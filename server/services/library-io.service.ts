@@ -125,8 +125,8 @@ async function runImport(
   const report: ImportReport = { rowsRead: job.rowsRead, tables: counts, problems: converted.problems };
   if (report.problems.length === 0 && converted.entries.length === 0)
     report.problems.push({ file: input.files.join(', '), line: null, column: null, reason: 'The files hold no rows.' });
-  if (report.problems.length === 0) {
-    // Every row parsed: check them against the library as the amendment will, and name all problems by row.
+  if (converted.entries.length > 0) {
+    // The rows that parse are checked against the library as the amendment will be, so every bad row is named at once.
     const snapshot = await snapshotFor(ctx.library);
     // A source row whose key the library has corrects that source (set-source names it by id).
     const sourceIds = new Map([...snapshot.sources.values()].map((s) => [s.key, s.id]));
