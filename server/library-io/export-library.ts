@@ -58,7 +58,10 @@ export function libraryExport(snapshot: LibrarySnapshot): LibraryExport {
       ionConvention: v.ionConvention,
       derivation: v.derivation,
     }))
-    .sort((a, b) => byCodeUnits(a.species, b.species) || byCodeUnits(a.property, b.property) || byCodeUnits(a.source, b.source));
+    .sort(
+      (a, b) =>
+        byCodeUnits(a.species, b.species) || byCodeUnits(a.property, b.property) || byCodeUnits(a.source, b.source),
+    );
   const valueSource = new Map<string, string>();
   for (const v of [...snapshot.values.values()].flat()) valueSource.set(v.id, sourceKey(v.sourceId));
   for (const m of [...snapshot.models.values()].flat()) valueSource.set(m.id, sourceKey(m.sourceId));
@@ -129,8 +132,5 @@ export function valuesCsv(data: LibraryExport): string {
     v.provenanceNote ?? '',
     selected.has(`${v.species}|${v.property}|${v.source}`) ? 'yes' : 'no',
   ]);
-  return Papa.unparse(
-    { fields: [...valuesCsvColumns], data: rows },
-    { escapeFormulae: formulaStart, newline: '\r\n' },
-  );
+  return Papa.unparse({ fields: [...valuesCsvColumns], data: rows }, { escapeFormulae: formulaStart, newline: '\r\n' });
 }

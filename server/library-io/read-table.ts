@@ -83,9 +83,7 @@ export async function readXlsx(file: string, bytes: Buffer): Promise<ReadTable[]
     const name = `${file} (sheet ${sheet})`;
     const table: ReadTable = { file: name, header: [], rows: [], problems: [] };
     data.forEach((row, index) => {
-      const cells = row.map((cell) =>
-        cell === null ? '' : cell instanceof Date ? cell.toISOString() : String(cell),
-      );
+      const cells = row.map((cell) => (cell === null ? '' : cell instanceof Date ? cell.toISOString() : String(cell)));
       if (cells.every((c) => c.trim() === '')) return;
       if (table.header.length === 0) {
         table.header = cells.map((c) => c.trim()).filter((c, i, all) => c !== '' || i < all.length - 1);

@@ -157,7 +157,9 @@ function speciesEntry(c: Record<string, string>): unknown {
     kind: 'set-species',
     key: c.key ?? '',
     name: c.name ?? '',
-    ...(c.synonyms !== undefined ? { synonyms: synonyms === null ? [] : synonyms.split(';').map((s) => s.trim()) } : {}),
+    ...(c.synonyms !== undefined
+      ? { synonyms: synonyms === null ? [] : synonyms.split(';').map((s) => s.trim()) }
+      : {}),
     ...(c.cas !== undefined ? { cas: blankToNull(c.cas) } : {}),
     ...(c.inchikey !== undefined ? { inchikey: blankToNull(c.inchikey) } : {}),
     ...(c.inchi !== undefined ? { inchi: blankToNull(c.inchi) } : {}),
@@ -175,7 +177,8 @@ function standardOf(kind: string, value: number | null, k: number | null): numbe
         : { kind: kind as 'standard' | 'two-sigma' | 'interval', value },
     ).u;
   } catch (error) {
-    if (error instanceof ThermoInputError) throw new RowProblem(kind === 'expanded' ? 'k' : 'uncertainty', error.message);
+    if (error instanceof ThermoInputError)
+      throw new RowProblem(kind === 'expanded' ? 'k' : 'uncertainty', error.message);
     throw error;
   }
 }
@@ -236,19 +239,15 @@ const builders: Record<ImportTable, (cells: Record<string, string>) => unknown> 
 function columnFor(table: ImportTable, path: readonly PropertyKey[]): string {
   const fields = path.map(String);
   if (table === 'sources' && fields[0] === 'source' && fields[1]) return fields[1];
-  if (table === 'values' && fields[0] === 'stated') return fields[1] === 'k' ? 'k' : fields[1] === 'kind' ? 'uncertainty_kind' : 'uncertainty';
+  if (table === 'values' && fields[0] === 'stated')
+    return fields[1] === 'k' ? 'k' : fields[1] === 'kind' ? 'uncertainty_kind' : 'uncertainty';
   if (table === 'values' && (fields[0] === 'deltaFH' || fields[0] === 'entropy'))
     return fields[1] === 'uncertainty' ? 'uncertainty' : 'value';
   return columnsOf[table][fields[0] ?? ''] ?? (fields.join('.') || 'row');
 }
 
 /** Converts one row; problems (all of them) are pushed onto `problems`. */
-function convertRow(
-  table: ImportTable,
-  file: string,
-  row: TableRow,
-  problems: ImportProblem[],
-): AmendmentEntry | null {
+function convertRow(table: ImportTable, file: string, row: TableRow, problems: ImportProblem[]): AmendmentEntry | null {
   let candidate: unknown;
   try {
     candidate = builders[table](row.cells);
@@ -289,7 +288,12 @@ export async function tablesToEntries(
     }
     for (const column of read.header)
       if (!knownColumns[table].includes(column))
-        out.problems.push({ file: read.file, line: 1, column, reason: `"${column}" is not a column of the ${table} table.` });
+        out.problems.push({
+          file: read.file,
+          line: 1,
+          column,
+          reason: `"${column}" is not a column of the ${table} table.`,
+        });
     typed.push({ table, read });
   }
   let done = 0;

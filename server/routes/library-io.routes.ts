@@ -1,5 +1,12 @@
 import { z } from 'zod';
-import { MAX_IMPORT_ROWS, exportQuerySchema, importFieldsSchema, importJobParamsSchema, importJobSchema, libraryExportSchema } from '@shared/schemas/library-io';
+import {
+  MAX_IMPORT_ROWS,
+  exportQuerySchema,
+  importFieldsSchema,
+  importJobParamsSchema,
+  importJobSchema,
+  libraryExportSchema,
+} from '@shared/schemas/library-io';
 import { requireActor } from '../context';
 import { AppError } from '../errors';
 import type { UploadedFile } from '../services/amendment-files.service';
@@ -23,9 +30,13 @@ export const libraryIoRoutes = [
     handler: async ({ ctx, query, req }) => {
       const fields = importFieldsSchema.safeParse(req.body ?? {});
       if (!fields.success)
-        throw new AppError('validation_failed', `body.${fields.error.issues[0]?.path.join('.')}: ${fields.error.issues[0]?.message}`, {
-          issues: fields.error.issues.map((i) => ({ path: ['body', ...i.path.map(String)], message: i.message })),
-        });
+        throw new AppError(
+          'validation_failed',
+          `body.${fields.error.issues[0]?.path.join('.')}: ${fields.error.issues[0]?.message}`,
+          {
+            issues: fields.error.issues.map((i) => ({ path: ['body', ...i.path.map(String)], message: i.message })),
+          },
+        );
       const wait = query.wait === 'true';
       const job = await startImport(requireActor(ctx), {
         files: (Array.isArray(req.files) ? req.files : []) as UploadedFile[],
@@ -51,7 +62,8 @@ export const libraryIoRoutes = [
     method: 'get',
     path: '/library/export.json',
     summary: 'The library at a revision as JSON that imports back as an amendment',
-    description: 'Sources, species, values (as the sources print them) and selections; `revision` (default: the newest).',
+    description:
+      'Sources, species, values (as the sources print them) and selections; `revision` (default: the newest).',
     tags: ['library'],
     access: 'public',
     request: { query: exportQuerySchema },
@@ -67,7 +79,7 @@ export const libraryIoRoutes = [
     path: '/library/export.csv',
     summary: 'The library’s values at a revision as CSV (the values table of seeds/library/FORMAT.md)',
     description:
-      'Text cells that start with = + - @ tab or CR are prefixed with \' (spreadsheet formula injection); numbers, negative ones included, are written as they are. A `selected` column says which value is selected. Imports back through POST /amendments/imports.',
+      "Text cells that start with = + - @ tab or CR are prefixed with ' (spreadsheet formula injection); numbers, negative ones included, are written as they are. A `selected` column says which value is selected. Imports back through POST /amendments/imports.",
     tags: ['library'],
     access: 'public',
     request: { query: exportQuerySchema },

@@ -46,11 +46,16 @@ function sweepJobs(now = Date.now()): void {
 function problemsError(report: ImportReport): AppError {
   const first = report.problems
     .slice(0, 3)
-    .map((p) => `${p.file}${p.line === null ? '' : ` line ${p.line}`}${p.column ? `, column ${p.column}` : ''}: ${p.reason}`)
+    .map(
+      (p) =>
+        `${p.file}${p.line === null ? '' : ` line ${p.line}`}${p.column ? `, column ${p.column}` : ''}: ${p.reason}`,
+    )
     .join('; ');
   const more = report.problems.length > 3 ? ` (and ${report.problems.length - 3} more)` : '';
   return new AppError('validation_failed', `Nothing was imported: ${first}${more}.`, {
-    issues: report.problems.slice(0, 200).map((p) => ({ path: ['files', p.file, p.line ?? 0, p.column ?? ''], message: p.reason })),
+    issues: report.problems
+      .slice(0, 200)
+      .map((p) => ({ path: ['files', p.file, p.line ?? 0, p.column ?? ''], message: p.reason })),
     report,
   });
 }
@@ -60,22 +65,34 @@ async function readFile(file: UploadedFile): Promise<ReadTable[]> {
   const name = file.originalname;
   const verdict = await detectEvidenceType(file.buffer, name);
   if (!verdict.ok)
-    throw new AppError('unsupported_media_type', `"${name}" cannot be imported: ${verdict.reason}. Send CSV, XLSX or the JSON export.`, {
-      name,
-    });
+    throw new AppError(
+      'unsupported_media_type',
+      `"${name}" cannot be imported: ${verdict.reason}. Send CSV, XLSX or the JSON export.`,
+      {
+        name,
+      },
+    );
   if (verdict.mediaType === 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet') {
     try {
       return await readXlsx(name, file.buffer);
     } catch (error) {
-      throw new AppError('validation_failed', `"${name}" is not a workbook that can be read: ${(error as Error).message}.`, {
-        issues: [{ path: ['files', name], message: 'The workbook cannot be read.' }],
-      });
+      throw new AppError(
+        'validation_failed',
+        `"${name}" is not a workbook that can be read: ${(error as Error).message}.`,
+        {
+          issues: [{ path: ['files', name], message: 'The workbook cannot be read.' }],
+        },
+      );
     }
   }
   if (verdict.mediaType !== 'text/csv' && verdict.mediaType !== 'text/plain')
-    throw new AppError('unsupported_media_type', `"${name}" is ${verdict.mediaType}: send CSV, XLSX or the JSON export.`, {
-      name,
-    });
+    throw new AppError(
+      'unsupported_media_type',
+      `"${name}" is ${verdict.mediaType}: send CSV, XLSX or the JSON export.`,
+      {
+        name,
+      },
+    );
   const text = file.buffer.toString('utf8');
   if (/^\s*\{/.test(text)) {
     let json: unknown;
@@ -88,9 +105,16 @@ async function readFile(file: UploadedFile): Promise<ReadTable[]> {
     }
     const parsed = libraryExportSchema.safeParse(json);
     if (!parsed.success)
-      throw new AppError('validation_failed', `"${name}" is not a library export: ${parsed.error.issues[0]?.message}.`, {
-        issues: parsed.error.issues.map((i) => ({ path: ['files', name, ...i.path.map(String)], message: i.message })),
-      });
+      throw new AppError(
+        'validation_failed',
+        `"${name}" is not a library export: ${parsed.error.issues[0]?.message}.`,
+        {
+          issues: parsed.error.issues.map((i) => ({
+            path: ['files', name, ...i.path.map(String)],
+            message: i.message,
+          })),
+        },
+      );
     return exportToTables(name, parsed.data);
   }
   return [readCsv(name, text)];
@@ -176,11 +200,15 @@ export async function startImport(
   for (const file of input.files) tables.push(...(await readFile(file)));
   const rowsTotal = tables.reduce((n, t) => n + t.rows.length, 0);
   if (rowsTotal > MAX_IMPORT_ROWS)
-    throw new AppError('payload_too_large', `The files hold ${rowsTotal} rows; one import takes at most ${MAX_IMPORT_ROWS}.`, {
-      limit: 'rows',
-      max: MAX_IMPORT_ROWS,
-      rows: rowsTotal,
-    });
+    throw new AppError(
+      'payload_too_large',
+      `The files hold ${rowsTotal} rows; one import takes at most ${MAX_IMPORT_ROWS}.`,
+      {
+        limit: 'rows',
+        max: MAX_IMPORT_ROWS,
+        rows: rowsTotal,
+      },
+    );
   const job: ImportJob = {
     jobId: randomUUID(),
     state: 'running',
@@ -223,7 +251,10 @@ export async function importJob(ctx: ActorContext, { jobId }: { jobId: string })
 
 // ——— Export ———
 
-export async function exportLibraryJson(ctx: ServiceContext, { revision }: { revision?: number | undefined }): Promise<LibraryExport> {
+export async function exportLibraryJson(
+  ctx: ServiceContext,
+  { revision }: { revision?: number | undefined },
+): Promise<LibraryExport> {
   return libraryExport(await snapshotFor(ctx.library, revision));
 }
 

@@ -25,13 +25,58 @@ const sources = library.sources.slice(0, 5).map((s) => s.key);
 const rows: string[][] = [];
 for (const source of sources)
   for (const [i, s] of species.entries()) {
-    rows.push([s.key, 'dfH298', `-${100 + i}.5`, 'kJ/mol', 'standard', '0.3', '', source, '', '', 'entered', '1', '', '']);
-    rows.push([s.key, 'S298', `${50 + i}.25`, 'J/(mol K)', 'standard', '0.5', '', source, '', '', 'entered', '1', '', '']);
+    rows.push([
+      s.key,
+      'dfH298',
+      `-${100 + i}.5`,
+      'kJ/mol',
+      'standard',
+      '0.3',
+      '',
+      source,
+      '',
+      '',
+      'entered',
+      '1',
+      '',
+      '',
+    ]);
+    rows.push([
+      s.key,
+      'S298',
+      `${50 + i}.25`,
+      'J/(mol K)',
+      'standard',
+      '0.5',
+      '',
+      source,
+      '',
+      '',
+      'entered',
+      '1',
+      '',
+      '',
+    ]);
   }
 if (rows.length !== 10_000) throw new Error(`expected 10,000 rows, made ${rows.length}`);
 const csv = Buffer.from(
   Papa.unparse({
-    fields: ['species', 'property', 'value', 'unit', 'uncertainty_kind', 'uncertainty', 'k', 'source', 'table', 'entry_note', 'provenance', 'pressure_bar', 'ion_convention', 'note'],
+    fields: [
+      'species',
+      'property',
+      'value',
+      'unit',
+      'uncertainty_kind',
+      'uncertainty',
+      'k',
+      'source',
+      'table',
+      'entry_note',
+      'provenance',
+      'pressure_bar',
+      'ion_convention',
+      'note',
+    ],
     data: rows,
   }),
 );

@@ -65,10 +65,16 @@ describe('import', () => {
   });
 
   it('refuses a file whose content is not CSV, XLSX or JSON (415) and one over the row limit (413)', async () => {
-    const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5d4e1b20000000049454e44ae426082', 'hex');
+    const png = Buffer.from(
+      '89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5d4e1b20000000049454e44ae426082',
+      'hex',
+    );
     const notCsv = await importFiles([{ name: 'values.csv', text: png }]);
     expect(notCsv.status).toBe(415);
-    const rows = Array.from({ length: 20_001 }, () => 'CO2(g),dfH298,-393.1,kJ/mol,standard,0.2,,codata-1989,,,entered,1,,');
+    const rows = Array.from(
+      { length: 20_001 },
+      () => 'CO2(g),dfH298,-393.1,kJ/mol,standard,0.2,,codata-1989,,,entered,1,,',
+    );
     const big = await importFiles([{ name: 'big.csv', text: [valuesHeader, ...rows].join('\n') }]);
     expect(big.status).toBe(413);
   });
@@ -99,8 +105,16 @@ describe('import', () => {
     const rows: string[] = [valuesHeader];
     for (const source of sources)
       for (const [i, s] of species.entries()) {
-        rows.push(Papa.unparse([[s.key, 'dfH298', `-${100 + i}.5`, 'kJ/mol', 'standard', '0.3', '', source, '', '', 'entered', '1', '', '']]));
-        rows.push(Papa.unparse([[s.key, 'S298', `${50 + i}.25`, 'J/(mol K)', 'standard', '0.5', '', source, '', '', 'entered', '1', '', '']]));
+        rows.push(
+          Papa.unparse([
+            [s.key, 'dfH298', `-${100 + i}.5`, 'kJ/mol', 'standard', '0.3', '', source, '', '', 'entered', '1', '', ''],
+          ]),
+        );
+        rows.push(
+          Papa.unparse([
+            [s.key, 'S298', `${50 + i}.25`, 'J/(mol K)', 'standard', '0.5', '', source, '', '', 'entered', '1', '', ''],
+          ]),
+        );
       }
     expect(rows.length - 1).toBe(10_000);
     const res = await importFiles([{ name: 'ten-thousand.csv', text: rows.join('\r\n') }]);
@@ -149,9 +163,14 @@ describe('export', () => {
     const original = await exportJson(1);
     // Change the library: revise a selected value and select another value.
     const selected = original.selections.find((s) => s.property === 'dfH298' && s.species === 'CO2(g)')!;
-    const value = original.values.find((v) => v.species === 'CO2(g)' && v.property === 'dfH298' && v.source === selected.source)!;
+    const value = original.values.find(
+      (v) => v.species === 'CO2(g)' && v.property === 'dfH298' && v.source === selected.source,
+    )!;
     const other = original.values.find(
-      (v) => v.species === 'H2O(l)' && v.property === 'dfH298' && original.selections.every((s) => !(s.species === 'H2O(l)' && s.property === 'dfH298' && s.source === v.source)),
+      (v) =>
+        v.species === 'H2O(l)' &&
+        v.property === 'dfH298' &&
+        original.selections.every((s) => !(s.species === 'H2O(l)' && s.property === 'dfH298' && s.source === v.source)),
     )!;
     const changed = await acceptEntries(t, [
       {
@@ -161,7 +180,13 @@ describe('export', () => {
         stated: { kind: 'none', value: null },
         source: { key: value.source },
       },
-      { kind: 'select-value', species: 'H2O(l)', property: 'dfH298', source: { key: other.source }, reason: 'A test change.' },
+      {
+        kind: 'select-value',
+        species: 'H2O(l)',
+        property: 'dfH298',
+        source: { key: other.source },
+        reason: 'A test change.',
+      },
     ]);
     const between = await exportJson(changed.revision);
     expect(between.values).not.toEqual(original.values);
@@ -170,7 +195,11 @@ describe('export', () => {
     expect(imported.status, JSON.stringify(imported.body).slice(0, 800)).toBe(201);
     const member = await t.signIn('member');
     expect((await member.post(`/api/v1/amendments/${imported.body.amendmentId}/open`).send({})).status).toBe(200);
-    const accepted = await (await t.signIn('curator')).post(`/api/v1/amendments/${imported.body.amendmentId}/accept`).send({});
+    const accepted = await (
+      await t.signIn('curator')
+    )
+      .post(`/api/v1/amendments/${imported.body.amendmentId}/accept`)
+      .send({});
     expect(accepted.status, JSON.stringify(accepted.body).slice(0, 800)).toBe(200);
     const restored = await exportJson(accepted.body.resultRevision);
     expect(restored.revision).toBeGreaterThan(changed.revision);
