@@ -318,14 +318,16 @@ export async function tablesToEntries(
 /** The JSON export as tables of rows (so it is checked exactly as a CSV would be). */
 export function exportToTables(file: string, data: LibraryExport): ReadTable[] {
   const text = (v: string | number | null) => (v === null ? '' : String(v));
-  const table = (header: string[], rows: Record<string, string>[]): ReadTable => ({
-    file,
+  // A problem names the table and the item's number in it (1 = the first): "library.json values", line 12.
+  const table = (name: string, header: string[], rows: Record<string, string>[]): ReadTable => ({
+    file: `${file} ${name}`,
     header,
-    rows: rows.map((cells) => ({ line: null as unknown as number, cells })),
+    rows: rows.map((cells, index) => ({ line: index + 1, cells })),
     problems: [],
   });
   return [
     table(
+      'sources',
       ['key', 'kind', 'authors', 'title', 'publication', 'year', 'volume', 'pages', 'doi', 'isbn', 'url', 'note'],
       data.sources.map((s) => ({
         key: s.key,
@@ -343,6 +345,7 @@ export function exportToTables(file: string, data: LibraryExport): ReadTable[] {
       })),
     ),
     table(
+      'species',
       ['key', 'name', 'synonyms', 'cas', 'inchikey', 'inchi', 'note'],
       data.species.map((s) => ({
         key: s.key,
@@ -355,6 +358,7 @@ export function exportToTables(file: string, data: LibraryExport): ReadTable[] {
       })),
     ),
     table(
+      'values',
       [...knownColumns.values],
       data.values.map((v) => ({
         species: v.species,
@@ -376,6 +380,7 @@ export function exportToTables(file: string, data: LibraryExport): ReadTable[] {
       })),
     ),
     table(
+      'selections',
       ['species', 'property', 'source', 'reason'],
       data.selections.map((s) => ({ species: s.species, property: s.property, source: s.source, reason: s.reason })),
     ),

@@ -17,6 +17,7 @@ import { readCsv, readXlsx, type ReadTable } from '../library-io/read-table';
 import { exportToTables, tableOf, tablesToEntries, type EntryOrigin } from '../library-io/rows-to-entries';
 import { createAmendment } from './amendments.service';
 import { snapshotFor } from './library.service';
+import type { LibrarySnapshot } from '../library/snapshot';
 import type { UploadedFile } from './amendment-files.service';
 
 /**
@@ -133,6 +134,39 @@ function planProblems(
   });
 }
 
+const sourceFields = [
+  'kind',
+  'authors',
+  'title',
+  'publication',
+  'year',
+  'volume',
+  'pages',
+  'doi',
+  'isbn',
+  'url',
+  'note',
+] as const;
+
+/**
+ * Source rows the library already holds as they are change nothing: they are left out, so an
+ * export re-imports even where a source was first given by its citation alone (no authors).
+ */
+function withoutKnownSources(tables: readonly ReadTable[], snapshot: LibrarySnapshot): ReadTable[] {
+  const byKey = new Map([...snapshot.sources.values()].map((s) => [s.key, s]));
+  const blank = (v: string | number | null | undefined) =>
+    v === null || v === undefined || String(v).trim() === '' ? null : String(v).trim();
+  const same = (cells: Record<string, string>) => {
+    const known = byKey.get((cells.key ?? '').trim());
+    return (
+      known !== undefined && sourceFields.every((f) => cells[f] === undefined || blank(cells[f]) === blank(known[f]))
+    );
+  };
+  return tables.map((t) =>
+    tableOf(t.header) === 'sources' ? { ...t, rows: t.rows.filter((r) => !same(r.cells)) } : t,
+  );
+}
+
 async function runImport(
   ctx: ActorContext,
   record: JobRecord,
@@ -140,7 +174,9 @@ async function runImport(
   input: { title?: string | undefined; rationale?: string | undefined; files: string[] },
 ): Promise<void> {
   const job = record.job;
-  const converted = await tablesToEntries(tables, (done) => (job.rowsRead = done));
+  const snapshot = await snapshotFor(ctx.library);
+  const converted = await tablesToEntries(withoutKnownSources(tables, snapshot), (done) => (job.rowsRead = done));
+  job.rowsRead = job.rowsTotal;
   const counts: Record<string, number> = {};
   for (const t of tables) {
     const table = tableOf(t.header);
@@ -151,7 +187,6 @@ async function runImport(
     report.problems.push({ file: input.files.join(', '), line: null, column: null, reason: 'The files hold no rows.' });
   if (converted.entries.length > 0) {
     // The rows that parse are checked against the library as the amendment will be, so every bad row is named at once.
-    const snapshot = await snapshotFor(ctx.library);
     // A source row whose key the library has corrects that source (set-source names it by id).
     const sourceIds = new Map([...snapshot.sources.values()].map((s) => [s.key, s.id]));
     converted.entries = converted.entries.map((e) =>
