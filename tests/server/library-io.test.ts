@@ -1,4 +1,5 @@
 import Papa from 'papaparse';
+import writeXlsxFile from 'write-excel-file/node';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { LibraryExport } from '@shared/schemas/library-io';
 import { acceptEntries } from './amendment-helpers';
@@ -77,6 +78,39 @@ describe('import', () => {
     );
     const big = await importFiles([{ name: 'big.csv', text: [valuesHeader, ...rows].join('\n') }]);
     expect(big.status).toBe(413);
+  });
+
+  it('reads an XLSX workbook (numbers as cells) and names a bad row by its sheet row', async () => {
+    const header = valuesHeader.split(',').map((value) => ({ value }));
+    const row = (property: string, value: number) =>
+      [
+        'CO2(g)',
+        property,
+        value,
+        'kJ/mol',
+        'standard',
+        0.2,
+        null,
+        'codata-1989',
+        null,
+        null,
+        'entered',
+        1,
+        null,
+        null,
+      ].map((v) => (v === null ? null : { value: v }));
+    const workbook = (rows: ReturnType<typeof row>[]) => writeXlsxFile([header, ...rows]).toBuffer();
+    const bad = await importFiles([
+      { name: 'values.xlsx', text: await workbook([row('dfH298', -393.3), row('dfH', -393.3)]) },
+    ]);
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.details.report.problems).toEqual([
+      expect.objectContaining({ file: expect.stringContaining('values.xlsx'), line: 3, column: 'property' }),
+    ]);
+    const good = await importFiles([{ name: 'values.xlsx', text: await workbook([row('dfH298', -393.3)]) }]);
+    expect(good.status, JSON.stringify(good.body).slice(0, 500)).toBe(201);
+    const amendment = await (await t.signIn('member')).get(`/api/v1/amendments/${good.body.amendmentId}?impact=false`);
+    expect(amendment.body.entries[0]).toMatchObject({ kind: 'revise-value', deltaFH: { value: -393.3 } });
   });
 
   it('runs as a job whose progress and outcome can be read', async () => {
