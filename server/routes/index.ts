@@ -9,6 +9,7 @@ import { derivedValueRoutes } from './derived-values.routes';
 import { healthRoutes } from './health.routes';
 import { invitationRoutes } from './invitations.routes';
 import { libraryRoutes } from './library.routes';
+import { libraryIoRoutes } from './library-io.routes';
 import { noteRoutes } from './notes.routes';
 import { notificationRoutes } from './notifications.routes';
 import { buildOpenApiDocument } from './openapi';
@@ -30,6 +31,7 @@ const resourceRoutes: AnyRoute[] = [
   ...adminRoutes,
   ...balanceRoutes,
   ...libraryRoutes,
+  ...libraryIoRoutes,
   ...amendmentRoutes,
   ...notificationRoutes,
   ...reactionEnthalpyRoutes,

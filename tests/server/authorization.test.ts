@@ -65,6 +65,10 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/amendments': 'signed_in',
   'GET /api/v1/amendments/counts': 'signed_in',
   'POST /api/v1/amendments': 'proposer',
+  'POST /api/v1/amendments/imports': 'proposer',
+  'GET /api/v1/amendments/imports/:jobId': 'proposer',
+  'GET /api/v1/library/export.json': 'public',
+  'GET /api/v1/library/export.csv': 'public',
   'GET /api/v1/amendments/:amendmentId': 'signed_in',
   'PUT /api/v1/amendments/:amendmentId': 'proposer',
   'POST /api/v1/amendments/:amendmentId/open': 'proposer',
@@ -170,7 +174,7 @@ function urlFor(route: AnyRoute): string {
     .replace(':teamId', t.ids.teams.kestrel)
     .replace(':token', 'x'.repeat(43))
     .replace(':version', '1')
-    .replace(/:(userId|noteId|invitationId|tokenId|setId|linkId|valueId|amendmentId|fileId|runId)/g, () =>
+    .replace(/:(userId|noteId|invitationId|tokenId|setId|linkId|valueId|amendmentId|fileId|runId|jobId)/g, () =>
       randomUUID(),
     );
   return `/api/v1${path}`;
