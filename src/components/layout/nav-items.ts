@@ -19,6 +19,7 @@ export const navItems: readonly NavItem[] = [
   { key: 'library', label: 'Library', routeName: 'library', access: 'public' },
   { key: 'derive', label: 'Derive', routeName: 'derive', access: 'public' },
   { key: 'calorimetry', label: 'Calorimetry', routeName: 'calorimetry', access: 'public' },
+  { key: 'amendments', label: 'Amendments', routeName: 'amendments', access: 'signed_in' },
   { key: 'notes', label: 'Team notes', routeName: 'team-notes', access: { team: 'viewer' } },
   { key: 'members', label: 'Members', routeName: 'team-members', access: { team: 'viewer' } },
   { key: 'admin', label: 'Admin', routeName: 'admin-users', access: { site: 'site_admin' } },
