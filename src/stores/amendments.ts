@@ -2,6 +2,7 @@ import { defineStore } from 'pinia';
 import { ref } from 'vue';
 import type { AmendmentCounts, AmendmentDetail, AmendmentInput, AmendmentList } from '@shared/schemas/amendments';
 import * as amendmentsApi from '@/api/amendments';
+import { useLibraryStore } from './library';
 import type { AmendmentActionName, AmendmentFilter } from '@/api/amendments';
 
 /** The review queue, the amendment on screen and the counts the navigation shows. */
@@ -47,6 +48,7 @@ export const useAmendmentsStore = defineStore('amendments', () => {
   /** Runs an action and reloads the amendment in full (action replies leave the impact out). */
   async function act(id: string, action: AmendmentActionName, reason?: string): Promise<AmendmentDetail> {
     const reply = await amendmentsApi.actOnAmendment(id, action, reason);
+    if (action === 'accept') useLibraryStore().forgetCurrent();
     void refreshCounts();
     if (reply.id !== id) return reply; // revert makes a new amendment
     return load(id);
