@@ -106,5 +106,14 @@ describe('curation', () => {
     expect(now.revision).toBe(newRevision);
     // ΔrH° = 2 ΔfH°(NH3, g) − 0 − 0 (elements in their reference states).
     expect(now.value).toBeCloseTo(2 * proposed, 6);
+
+    // Narrow screens: the queue and the decided amendment.
+    await page.setViewportSize({ width: 390, height: 1600 });
+    await page.goto('/amendments?state=all');
+    await page.getByTestId('queue-row').first().waitFor();
+    await screenshot(page, 'curation-queue-narrow');
+    await page.goto(amendmentPath);
+    await page.getByTestId('amendment-diff').waitFor();
+    await screenshot(page, 'curation-amendment-narrow');
   }, 180_000);
 });
