@@ -13,7 +13,7 @@ export const API_BASE = '/api/v1';
 export type HttpMethod = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 export interface RequestOptions<T> {
-  /** Sent as JSON. */
+  /** Sent as JSON (a FormData goes as multipart). */
   body?: unknown;
   query?: Record<string, string | number | boolean | undefined>;
   /** Parses the reply; omit for replies without a body (204). */
@@ -84,7 +84,10 @@ export async function request<T = void>(method: HttpMethod, path: string, option
   const headers: Record<string, string> = { Accept: 'application/json' };
   const init: RequestInit = { method, headers, credentials: 'same-origin' };
   if (options.signal) init.signal = options.signal;
-  if (options.body !== undefined) {
+  if (options.body instanceof FormData) {
+    // The browser sets the multipart boundary itself.
+    init.body = options.body;
+  } else if (options.body !== undefined) {
     headers['Content-Type'] = 'application/json';
     init.body = JSON.stringify(options.body);
   }

@@ -51,6 +51,24 @@ export const routes: RouteRecordRaw[] = [
     meta: { access: 'public', title: 'Calorimetry' },
   },
   {
+    path: '/amendments',
+    name: 'amendments',
+    component: () => import('@/views/AmendmentsView.vue'),
+    meta: { access: 'signed_in', title: 'Amendments' },
+  },
+  {
+    path: '/amendments/new',
+    name: 'amendment-new',
+    component: () => import('@/views/NewAmendmentView.vue'),
+    meta: { access: 'signed_in', title: 'New amendment' },
+  },
+  {
+    path: '/amendments/:amendmentId',
+    name: 'amendment',
+    component: () => import('@/views/AmendmentView.vue'),
+    meta: { access: 'signed_in', title: 'Amendment' },
+  },
+  {
     path: '/sign-in',
     name: 'sign-in',
     component: () => import('@/views/SignInView.vue'),

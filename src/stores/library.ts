@@ -69,7 +69,14 @@ export const useLibraryStore = defineStore('library', () => {
     return pending;
   }
 
+  /** After an accepted amendment: the current revision moved, so current replies are stale. */
+  function forgetCurrent(): void {
+    for (const key of [...details.keys()]) if (key.endsWith('@current')) details.delete(key);
+    revisions.value = null;
+  }
+
   return {
+    forgetCurrent,
     search,
     columns,
     results,

@@ -48,7 +48,27 @@ describe('visibleNavItems', () => {
       teams: [{ id: team, name: 'T', slug: 't', role: 'member' }],
       via: 'session',
     };
-    expect(keys(curator, team)).toEqual(['workbench', 'library', 'derive', 'calorimetry', 'sets', 'notes', 'members']);
+    expect(keys(curator, team)).toEqual([
+      'workbench',
+      'library',
+      'derive',
+      'calorimetry',
+      'sets',
+      'amendments',
+      'notes',
+      'members',
+    ]);
+  });
+
+  it('shows Amendments to a team member (a proposer) but not to a viewer', () => {
+    const member: SessionInfo = {
+      user: { ...person, siteRoles: [] },
+      teams: [{ id: team, name: 'T', slug: 't', role: 'member' }],
+      via: 'session',
+    };
+    expect(keys(member, team)).toContain('amendments');
+    const viewer: SessionInfo = { ...member, teams: [{ id: team, name: 'T', slug: 't', role: 'viewer' }] };
+    expect(keys(viewer, team)).not.toContain('amendments');
   });
 
   it('drops team areas when the current team is not one of the user’s', () => {

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { axeFindings, blocking, logSummary, type AxeFinding } from './axe';
-import { openTeamArea, signIn, useBrowser, type Role } from './helpers';
+import { apiAs, openTeamArea, signIn, unique, useBrowser, type Role } from './helpers';
 
 interface Step {
   name: string;
@@ -32,6 +32,62 @@ const account: Step = {
       .getByText(/No tokens yet|Revoke/)
       .first()
       .waitFor();
+    await page.getByTestId('notification-settings').waitFor();
+  },
+};
+const amendmentQueue: Step = {
+  name: 'amendments, review queue',
+  open: async (page) => {
+    await page.goto('/amendments?state=all');
+    await page.getByTestId('amendment-queue').or(page.getByTestId('queue-empty')).first().waitFor();
+  },
+};
+const newAmendment: Step = {
+  name: 'amendments, new amendment form',
+  open: async (page) => {
+    await page.goto('/amendments/new');
+    await page.getByTestId('propose-form').waitFor();
+  },
+};
+const proposeFromSpecies: Step = {
+  name: 'species page, propose-a-change form open',
+  open: async (page) => {
+    await page.goto('/library');
+    await page.locator('[data-testid="library-search"] input').fill('ammonia');
+    await page.getByTestId('species-row').filter({ hasText: 'NH3(g)' }).first().locator('a.key-link').click();
+    await page.getByTestId('propose-change').click();
+    await page.getByTestId('propose-form').waitFor();
+  },
+};
+/** An open amendment by the member (made over the API), as the curator reviews it. */
+const amendmentPage: Step = {
+  name: 'amendment page, open for review',
+  open: async (page) => {
+    const { api } = await apiAs('member');
+    try {
+      const species = await (await api.get('/api/v1/species', { params: { q: 'ammonia' } })).json();
+      const id = (species as { items: { id: string; key: string }[] }).items.find((s) => s.key === 'NH3(g)')?.id;
+      const created = await api.post('/api/v1/amendments', {
+        data: {
+          title: unique('Accessibility walk'),
+          rationale: 'Made by the accessibility walk; never accepted.',
+          entries: [
+            {
+              kind: 'revise-value',
+              species: id,
+              deltaFH: { value: -45.9, uncertainty: 0.4 },
+              source: { citation: 'Accessibility walk citation (invented, not a published value)' },
+            },
+          ],
+        },
+      });
+      const amendmentId = ((await created.json()) as { id: string }).id;
+      await api.post(`/api/v1/amendments/${amendmentId}/open`);
+      await page.goto(`/amendments/${amendmentId}`);
+      await page.getByTestId('amendment-impact').waitFor();
+    } finally {
+      await api.dispose();
+    }
   },
 };
 const notes: Step = {
@@ -164,9 +220,21 @@ const walks: Record<Role | 'anonymous', Step[]> = {
       },
     },
   ],
-  member: [workbenchBalanced, account, notes, noteComposer, members, deriveGiven, teamDerivedValues, sets],
+  member: [
+    workbenchBalanced,
+    account,
+    notes,
+    noteComposer,
+    members,
+    deriveGiven,
+    teamDerivedValues,
+    amendmentQueue,
+    newAmendment,
+    proposeFromSpecies,
+    sets,
+  ],
   teamAdmin: [workbenchBalanced, notes, members, sets],
-  curator: [workbenchBalanced, account, notes, members, consistency],
+  curator: [workbenchBalanced, account, notes, members, consistency, amendmentQueue, amendmentPage],
   siteAdmin: [
     workbenchBalanced,
     account,

@@ -4,6 +4,7 @@
  */
 import type { SessionInfo } from '@shared/schemas/session';
 import { decideAccess, type RouteAccess } from '@/router/access';
+import { canPropose } from '@/lib/amendment-words';
 
 export interface NavItem {
   key: string;
@@ -11,6 +12,8 @@ export interface NavItem {
   /** Route name the link opens. */
   routeName: string;
   access: RouteAccess;
+  /** A further condition beyond the route's access (Amendments: only those who may propose). */
+  when?: (session: SessionInfo) => boolean;
 }
 
 /** The areas built so far, in header order. */
@@ -20,6 +23,7 @@ export const navItems: readonly NavItem[] = [
   { key: 'derive', label: 'Derive', routeName: 'derive', access: 'public' },
   { key: 'calorimetry', label: 'Calorimetry', routeName: 'calorimetry', access: 'public' },
   { key: 'sets', label: 'Sets', routeName: 'team-sets', access: { team: 'viewer' } },
+  { key: 'amendments', label: 'Amendments', routeName: 'amendments', access: 'signed_in', when: canPropose },
   { key: 'notes', label: 'Team notes', routeName: 'team-notes', access: { team: 'viewer' } },
   { key: 'members', label: 'Members', routeName: 'team-members', access: { team: 'viewer' } },
   { key: 'admin', label: 'Admin', routeName: 'admin-users', access: { site: 'site_admin' } },
@@ -44,6 +48,7 @@ export function visibleNavItems(
     const isTeamArea = typeof item.access === 'object' && 'team' in item.access;
     if (isTeamArea && currentTeamId === null) continue;
     if (decideAccess(item.access, session, currentTeamId ?? undefined) !== 'allow') continue;
+    if (item.when && !item.when(session)) continue;
     out.push({ ...item, params: isTeamArea && currentTeamId !== null ? { teamId: currentTeamId } : {} });
   }
   return out;
