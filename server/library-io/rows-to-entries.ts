@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import { standardUncertainty, ThermoInputError } from '@shared/chemistry/thermo/index';
 import { amendmentEntrySchema, type AmendmentEntry } from '@shared/schemas/amendments';
 import type { ImportProblem, ImportTable, LibraryExport } from '@shared/schemas/library-io';
+import { seedFileHeaders } from '../library/seed-set';
 import type { ReadTable, TableRow } from './read-table';
 
 /**
@@ -20,39 +21,10 @@ export const tableColumns: Record<ImportTable, readonly string[]> = {
 
 /** Every column each table may have (FORMAT.md, plus `selected` on values from our CSV export). */
 const knownColumns: Record<ImportTable, readonly string[]> = {
-  sources: ['key', 'kind', 'authors', 'title', 'publication', 'year', 'volume', 'pages', 'doi', 'isbn', 'url', 'note'],
-  species: [
-    'key',
-    'formula',
-    'phase',
-    'descriptor',
-    'charge',
-    'name',
-    'synonyms',
-    'cas',
-    'inchikey',
-    'inchi',
-    'reference_state',
-    'note',
-  ],
-  values: [
-    'species',
-    'property',
-    'value',
-    'unit',
-    'uncertainty_kind',
-    'uncertainty',
-    'k',
-    'source',
-    'table',
-    'entry_note',
-    'provenance',
-    'pressure_bar',
-    'ion_convention',
-    'note',
-    'selected',
-  ],
-  selections: ['species', 'property', 'source', 'reason'],
+  sources: seedFileHeaders.sources,
+  species: seedFileHeaders.species,
+  values: [...seedFileHeaders.values, 'selected'],
+  selections: seedFileHeaders.selections,
 };
 
 /** The table a header row belongs to (the one whose required columns it has, most specific first). */

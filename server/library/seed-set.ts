@@ -376,7 +376,8 @@ function rowStartLines(text: string): (row: number) => number {
   return (row) => starts[row] ?? row + 2;
 }
 
-const headers = {
+/** The columns of each seed file, in order (FORMAT.md); the library import reads the same tables. */
+export const seedFileHeaders = {
   sources: ['key', 'kind', 'authors', 'title', 'publication', 'year', 'volume', 'pages', 'doi', 'isbn', 'url', 'note'],
   species: [
     'key',
@@ -729,17 +730,17 @@ export function readLibrarySet(
   for (const file of files) {
     switch (fileKind(file.name)) {
       case 'sources':
-        for (const { row, origin } of readCsv(file, headers.sources, sourceRow, problems))
+        for (const { row, origin } of readCsv(file, seedFileHeaders.sources, sourceRow, problems))
           set.sources.push({ ...row, origin });
         break;
       case 'species':
-        for (const { row, origin } of readCsv(file, headers.species, speciesRow, problems)) {
+        for (const { row, origin } of readCsv(file, seedFileHeaders.species, speciesRow, problems)) {
           const record = toSpecies(row, origin, problems);
           if (record) set.species.push(record);
         }
         break;
       case 'values':
-        for (const { row, origin } of readCsv(file, headers.values, valueRow, problems)) {
+        for (const { row, origin } of readCsv(file, seedFileHeaders.values, valueRow, problems)) {
           const record = toValue(row, origin, problems);
           if (record) set.values.push(record);
         }
@@ -748,11 +749,11 @@ export function readLibrarySet(
         set.models.push(...readModels(file, problems));
         break;
       case 'selections':
-        for (const { row, origin } of readCsv(file, headers.selections, selectionRow, problems))
+        for (const { row, origin } of readCsv(file, seedFileHeaders.selections, selectionRow, problems))
           set.selections.push({ ...row, origin });
         break;
       case 'reactions':
-        for (const { row, origin } of readCsv(file, headers.reactions, reactionRow, problems)) {
+        for (const { row, origin } of readCsv(file, seedFileHeaders.reactions, reactionRow, problems)) {
           const record = toReaction(row, origin, problems);
           if (record) set.reactions.push(record);
         }
