@@ -22,8 +22,15 @@ export interface LibraryNetwork {
   inputs: Map<string, InputInfo>;
   /** Keys of the elements' reference-state species (left out of every reaction). */
   referenceKeys: Set<string>;
-  /** Measured reactions left out, with the reason (e.g. not at 298.15 K). */
-  excluded: { key: string; reason: string }[];
+  /** Measured reactions left out, with why: in words and as a cause to count by. */
+  excluded: ExcludedReaction[];
+}
+
+export interface ExcludedReaction {
+  key: string;
+  reason: string;
+  /** 'restates': not independent of the library's values; 'no-heat-capacity': not at 298.15 K and no Cp to bring it there. */
+  cause: 'restates' | 'no-heat-capacity';
 }
 
 const networks = new WeakMap<LibrarySnapshot, LibraryNetwork>();
@@ -110,7 +117,7 @@ export function libraryNetworkOf(snapshot: LibrarySnapshot): LibraryNetwork {
   const excluded: LibraryNetwork['excluded'] = [];
   for (const r of snapshot.reactions) {
     if (!r.independent) {
-      excluded.push({ key: r.key, reason: 'restates values the library already holds' });
+      excluded.push({ key: r.key, reason: 'restates values the library already holds', cause: 'restates' });
       continue;
     }
     let deltaH = exact(r.deltaHText);
@@ -120,6 +127,7 @@ export function libraryNetworkOf(snapshot: LibrarySnapshot): LibraryNetwork {
         excluded.push({
           key: r.key,
           reason: `measured at ${r.temperature} K, and not every species has a heat-capacity model there`,
+          cause: 'no-heat-capacity',
         });
         continue;
       }

@@ -24,7 +24,7 @@ import type { DeriveInput, DeriveResult, GivenReaction } from '@shared/schemas/d
 import { AppError } from '../errors';
 import { fractionOf } from '../library/read-reaction';
 import { keyOfSpecies } from '../library/seed-set';
-import { exact, libraryNetworkOf } from '../library/network';
+import { exact, libraryNetworkOf, type ExcludedReaction } from '../library/network';
 import { hillKey, selectedModel, selectedValue, type LibrarySnapshot } from '../library/snapshot';
 import type { ServiceContext } from '../context';
 import { teamValuesAsReactions } from '../library/team-values';
@@ -67,6 +67,22 @@ export function searchStopWarning(search: Derivation['search'], maxRoutes: numbe
 }
 
 type Warning = DeriveResult['warnings'][number];
+
+/** Which of the library's measured reactions stay out of Hess sums and why, in words. */
+export function excludedReactionsMessage(excluded: ExcludedReaction[]): string {
+  const restating = excluded.filter((e) => e.cause === 'restates').length;
+  const uncorrectable = excluded.length - restating;
+  const parts: string[] = [];
+  if (restating > 0)
+    parts.push(
+      `${restating} restate${restating === 1 ? 's' : ''} values the library already holds (not independent measurements)`,
+    );
+  if (uncorrectable > 0)
+    parts.push(
+      `${uncorrectable} ${uncorrectable === 1 ? 'was' : 'were'} measured away from 298.15 K where a species lacks a heat-capacity model`,
+    );
+  return `${excluded.length} measured reaction${excluded.length === 1 ? '' : 's'} of the library ${excluded.length === 1 ? 'is' : 'are'} left out of Hess sums: ${parts.join('; ')}.`;
+}
 
 /** A species written in a target or given reaction, matched to the library where it is there. */
 export interface ReadSpecies {
@@ -324,10 +340,7 @@ export async function runDerivation(ctx: ServiceContext, input: DeriveInput): Pr
   else if (using === 'library' && teamReactions.length === 0) network = base.network;
   else network = extendHessNetwork(base.network, [...teamReactions, ...givenReactions], extraSpecies);
   if (using !== 'given' && base.excluded.length > 0)
-    warnings.push({
-      code: 'reactions_excluded',
-      message: `${base.excluded.length} measured reaction(s) of the library are not at 298.15 K and are left out of Hess sums.`,
-    });
+    warnings.push({ code: 'reactions_excluded', message: excludedReactionsMessage(base.excluded) });
 
   // Elements in their reference states balance by construction and have ΔfH° = 0: left out.
   const targetTerms: SignedTerm[] = target.terms
