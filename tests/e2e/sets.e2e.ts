@@ -35,6 +35,10 @@ describe('reaction sets', () => {
       .poll(() => page.getByTestId('save-status').textContent(), { timeout: 15_000 })
       .toContain('All changes saved');
     await page.getByRole('tab', { name: 'Results' }).click();
+    // Saved means saved: once the save lands the page stops calling the draft unsaved.
+    await expect
+      .poll(() => page.getByText('Results are for the last saved version.').count(), { timeout: 15_000 })
+      .toBe(0);
     const figures = page.getByTestId('item-delta-h');
     await expect.poll(() => figures.count(), { timeout: 15_000 }).toBe(2);
     const teamFigures = await figures.allTextContents();
