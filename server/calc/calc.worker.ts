@@ -5,7 +5,7 @@ import { ChemistryError } from '@shared/chemistry/index';
 import type { BalanceInput } from '@shared/schemas/balance';
 import type { BombInput, ConstantPressureInput } from '@shared/schemas/calorimetry';
 import type { CalcLimits } from '../env';
-import { setPdf, type SetReportInput } from '../reports/set-pdf';
+import type { SetReportInput } from '../reports/set-pdf';
 import { reduceBombRequest, reduceConstantPressureRequest, type AuxiliaryLookup } from './calorimetry-calls';
 import { balanceLines, balanceOne } from './core-calls';
 import { assertReplyWithinLimit, WorkLimitExceeded } from './work-limits';
@@ -47,9 +47,13 @@ function compute(task: JsonTask): unknown {
   }
 }
 
-/** The PDF report; the fonts are read once per worker thread (set-pdf.ts keeps them). */
+/**
+ * The PDF report. pdfkit is loaded by the first report a worker makes, so workers that only
+ * calculate start without it; the fonts are read once per worker (set-pdf.ts keeps them).
+ */
 async function report(task: Extract<CalcTask, { kind: 'set-pdf' }>): Promise<CalcOutcome> {
   try {
+    const { setPdf } = await import('../reports/set-pdf');
     const bytes = await setPdf(task.input);
     assertReplyWithinLimit(bytes.byteLength, task.limits, 'Split the set, or export it as CSV or JSON.');
     return { ok: true, bytes };
