@@ -3,6 +3,7 @@ import type { Logger } from 'pino';
 import { errorStatusByCode, type ErrorCode } from '@shared/schemas/errors';
 import type { CalcSettings } from '../env';
 import { AppError } from '../errors';
+import type { SetReportInput } from '../reports/set-pdf';
 import type { CalcOutcome, CalcTask } from './calc.worker';
 
 type TaskWithoutLimits = CalcTask extends infer T ? (T extends CalcTask ? Omit<T, 'limits'> : never) : never;
@@ -11,9 +12,26 @@ function isErrorCode(code: string): code is ErrorCode {
   return Object.hasOwn(errorStatusByCode, code);
 }
 
+/** How the pool's refusals name the work they stopped. */
+interface WorkWords {
+  subject: string;
+  smaller: string;
+  log: string;
+}
+const CALCULATION: WorkWords = {
+  subject: 'The calculation',
+  smaller: 'Send fewer or smaller equations',
+  log: 'calculation',
+};
+const REPORT: WorkWords = {
+  subject: 'The PDF report',
+  smaller: 'Split the set into smaller ones or export it as CSV',
+  log: 'PDF report',
+};
+
 /**
- * A pool of worker threads for the chemistry core's CPU work (piscina), so long calculations
- * never stall the request thread: health checks, sign-ins and other users stay answered.
+ * A pool of worker threads for the chemistry core's CPU work and the PDF reports (piscina), so
+ * long calculations and typesetting never stall the request thread: health checks, sign-ins and other users stay answered.
  * Each calculation gets a wall-clock budget (queueing included) and a heap ceiling; past either
  * the worker is stopped and the caller hears why, in words.
  */
@@ -38,29 +56,45 @@ export class CalcPool {
 
   /** Runs a calculation; resolves with the reply's JSON text, or throws the AppError to answer with. */
   async run(task: TaskWithoutLimits): Promise<string> {
-    const { timeBudgetMs, workerHeapMb, limits } = this.settings;
+    const outcome = await this.execute({ ...task, limits: this.settings.limits } as CalcTask, CALCULATION);
+    if (!('json' in outcome)) throw new Error('calculation worker answered a calculation with a file');
+    return outcome.json;
+  }
+
+  /**
+   * Typesets a reaction set's PDF report in a worker, under the same time budget, heap ceiling
+   * and queue as the calculations (503 with Retry-After, 413); resolves with the PDF's bytes.
+   */
+  async runReport(input: SetReportInput): Promise<Buffer> {
+    const outcome = await this.execute({ kind: 'set-pdf', input, limits: this.settings.limits }, REPORT);
+    if (!('bytes' in outcome)) throw new Error('calculation worker answered a report with JSON');
+    return Buffer.from(outcome.bytes.buffer, outcome.bytes.byteOffset, outcome.bytes.byteLength);
+  }
+
+  private async execute(task: CalcTask, words: WorkWords): Promise<Extract<CalcOutcome, { ok: true }>> {
+    const { timeBudgetMs, workerHeapMb } = this.settings;
     let outcome: CalcOutcome;
     this.running++;
     try {
-      outcome = await this.pool.run({ ...task, limits } as CalcTask, { signal: AbortSignal.timeout(timeBudgetMs) });
+      outcome = await this.pool.run(task, { signal: AbortSignal.timeout(timeBudgetMs) });
     } catch (err) {
-      throw this.translate(err, timeBudgetMs, workerHeapMb);
+      throw this.translate(err, timeBudgetMs, workerHeapMb, words);
     } finally {
       this.running--;
     }
-    if (outcome.ok) return outcome.json;
+    if (outcome.ok) return outcome;
     const { code, message, details } = outcome.error;
     if (!isErrorCode(code)) throw new Error(`calculation worker answered with unknown error code ${code}`);
-    return Promise.reject(new AppError(code, message, details));
+    throw new AppError(code, message, details);
   }
 
-  private translate(err: unknown, timeBudgetMs: number, workerHeapMb: number): unknown {
+  private translate(err: unknown, timeBudgetMs: number, workerHeapMb: number, words: WorkWords): unknown {
     const seconds = Math.ceil(timeBudgetMs / 1000);
     if (err instanceof Error && err.name === 'AbortError') {
-      this.log.warn({ budgetMs: timeBudgetMs }, 'calculation stopped at its time budget');
+      this.log.warn({ budgetMs: timeBudgetMs, work: words.log }, `${words.log} stopped at its time budget`);
       return new AppError(
         'unavailable',
-        `The calculation did not finish within its time budget of ${seconds} s and was stopped. Send fewer or smaller equations, or try again when the server is less busy.`,
+        `${words.subject} did not finish within its time budget of ${seconds} s and was stopped. ${words.smaller}, or try again when the server is less busy.`,
         { limit: 'timeBudgetMs', max: timeBudgetMs },
         { 'Retry-After': String(seconds) },
       );
@@ -74,10 +108,10 @@ export class CalcPool {
       );
     }
     if ((err as NodeJS.ErrnoException | undefined)?.code === 'ERR_WORKER_OUT_OF_MEMORY') {
-      this.log.warn({ heapMb: workerHeapMb }, 'calculation stopped at its memory ceiling');
+      this.log.warn({ heapMb: workerHeapMb, work: words.log }, `${words.log} stopped at its memory ceiling`);
       return new AppError(
         'payload_too_large',
-        `The calculation needed more than the ${workerHeapMb} MB one request may use and was stopped. Send fewer or smaller equations.`,
+        `${words.subject} needed more than the ${workerHeapMb} MB one request may use and was stopped. ${words.smaller}.`,
         { limit: 'memoryMb', max: workerHeapMb },
       );
     }

@@ -101,13 +101,17 @@ export function measureBatchText(text: string, limits: CalcLimits): BatchMeasure
 }
 
 /** 413 for a reply that would be larger than allowed. */
-export function assertReplyWithinLimit(bytes: number, limits: CalcLimits): void {
+export function assertReplyWithinLimit(
+  bytes: number,
+  limits: CalcLimits,
+  advice = 'Send fewer equations at a time.',
+): void {
   if (bytes > limits.maxReplyBytes) {
     exceeded(
       'replyBytes',
       limits.maxReplyBytes,
       bytes,
-      `The answer would be ${(bytes / 1e6).toFixed(1)} MB; replies are limited to ${(limits.maxReplyBytes / 1e6).toFixed(1)} MB. Send fewer equations at a time.`,
+      `The answer would be ${(bytes / 1e6).toFixed(1)} MB; replies are limited to ${(limits.maxReplyBytes / 1e6).toFixed(1)} MB. ${advice}`,
     );
   }
 }

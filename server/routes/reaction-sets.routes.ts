@@ -60,6 +60,15 @@ function setWorkLimits(config: AppConfig): string[] {
   ];
 }
 
+/** A PDF is typeset in the calculation workers, so it is also bounded like a calculation. */
+function pdfWorkLimits(config: AppConfig): string[] {
+  const { timeBudgetMs, workerHeapMb, queueLimit, limits } = config.calc;
+  return [
+    ...setWorkLimits(config),
+    `the PDF is typeset in the calculation worker threads, off the request thread: past the time budget of ${timeBudgetMs} ms (CALC_TIME_BUDGET_MS) or with ${queueLimit} calculations already waiting (CALC_QUEUE_LIMIT) the reply is 503 with Retry-After; past ${workerHeapMb} MB of worker heap (CALC_WORKER_HEAP_MB) or ${limits.maxReplyBytes} bytes of PDF (CALC_MAX_REPLY_BYTES) it is 413`,
+  ];
+}
+
 const files: { format: ExportFormat; type: string; words: string }[] = [
   { format: 'csv', type: 'text/csv', words: 'every result as CSV (one row per item; formula-like text neutralised)' },
   { format: 'json', type: 'application/json', words: 'the set and its results as JSON (what import reads)' },
@@ -77,7 +86,7 @@ const teamExports: AnyRoute[] = files.map((f) =>
     produces: f.type,
     request: { params: setParamsSchema },
     responses: { 200: z.string() },
-    ...(f.format === 'pdf' ? { describeLimits: setWorkLimits } : {}),
+    ...(f.format === 'pdf' ? { describeLimits: pdfWorkLimits } : {}),
     handler: ({ ctx, params }) => exportTeamSet(ctx, { ...params, format: f.format }),
   }),
 );
@@ -92,7 +101,7 @@ const sharedExports: AnyRoute[] = files.map((f) =>
     access: 'public',
     rateLimit: 'calc',
     produces: f.type,
-    describeLimits: setWorkLimits,
+    describeLimits: f.format === 'pdf' ? pdfWorkLimits : setWorkLimits,
     request: { params: sharedParamsSchema },
     responses: { 200: z.string() },
     handler: ({ ctx, params }) => exportSharedSet(ctx, { token: params.token, format: f.format }),

@@ -4,7 +4,6 @@ import type { ReactionSetRow } from '../db/tables/index';
 import { FileDownload } from '../lib/file-reply';
 import { setBibtex } from '../reports/bibtex';
 import { setCsv } from '../reports/set-csv';
-import { setPdf } from '../reports/set-pdf';
 import { evaluationOfSet } from './reaction-sets-evaluate.service';
 import { resolveShareToken, weighSetWork } from './reaction-sets-links.service';
 import { findSet, stateOf } from './reaction-sets.service';
@@ -37,7 +36,7 @@ export function exportFileName(title: string, version: number, format: ExportFor
 
 /**
  * Recent PDFs by set version and the results they print: typesetting a large set takes seconds of
- * the request thread, and a shared link's PDF is typically fetched by several readers. The
+ * a worker, and a shared link's PDF is typically fetched by several readers. The
  * results' `evaluatedAt` is in the key, so a PDF is only reused with the very results it printed.
  */
 const PDF_CACHE_SIZE = 8;
@@ -81,7 +80,10 @@ async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFo
     case 'pdf': {
       const key = `${set.id}|${set.version}|${evaluation.libraryRevision}|${evaluation.latestRevision}|${evaluation.evaluatedAt}`;
       return file(
-        await cachedPdf(key, () => setPdf({ state, version: set.version, evaluation, generatedAt: new Date() })),
+        // Typeset in the calculation pool's workers: bounded like a calculation, off the request thread.
+        await cachedPdf(key, () =>
+          ctx.calc.runReport({ state, version: set.version, evaluation, generatedAt: new Date() }),
+        ),
       );
     }
   }

@@ -1,5 +1,5 @@
 import { defineStore } from 'pinia';
-import { computed, ref, shallowRef } from 'vue';
+import { computed, ref, shallowRef, watch } from 'vue';
 import type {
   CreateSetInput,
   ReactionSet,
@@ -9,10 +9,8 @@ import type {
   SetListQuery,
 } from '@shared/schemas/reaction-sets';
 import * as setsApi from '@/api/reaction-sets';
-import { ApiError } from '@/api/api-error';
-import { apiErrorText } from '@/lib/api-error-words';
 import { reapplyEdit } from '@shared/reaction-sets/diff';
-import { draftKey, draftOf, stateOf, type SaveStatus, type SetDraft } from '@/lib/set-autosave';
+import { draftKey, draftOf, saveFailure, stateOf, type SaveStatus, type SetDraft } from '@/lib/set-autosave';
 
 /** Pause after the last keystroke before a save is sent. */
 export const AUTOSAVE_DELAY_MS = 800;
@@ -46,11 +44,23 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
   const resultsLoading = ref(false);
   /** After a reapplied edit: places both edits changed differently (the reapplied one won there). */
   const overlaps = ref<string[]>([]);
+  /** Whether the page may edit (members and above); viewers' drafts are never saved. */
+  const editable = ref(false);
   let timer: ReturnType<typeof setTimeout> | null = null;
   let inFlight: Promise<void> | null = null;
 
+  /** The draft differs from the set as last saved: the one rule behind both the status and the page's note. */
   const dirty = computed(
     () => draft.value !== null && current.value !== null && draftKey(draft.value) !== draftKey(current.value),
+  );
+
+  // The store sees every change of the draft itself, whoever made it (a field, the items editor, a
+  // radio group, a replay after a conflict): an edit can never sit in the draft unknown to the autosave.
+  watch(
+    () => (draft.value ? draftKey(draft.value) : null),
+    () => {
+      if (editable.value) edited();
+    },
   );
 
   function cancelTimer(): void {
@@ -93,18 +103,27 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
 
   function close(): void {
     cancelTimer();
+    status.value = { state: 'saved' };
     current.value = null;
     draft.value = null;
     results.value = null;
     conflict.value = null;
   }
 
-  /** Call after every edit of the draft: saves after a short pause (never while a conflict is open). */
+  /**
+   * After a change of the draft (called by the store's own watcher): saves after a short pause,
+   * never while a conflict is open. A draft back to the saved set is simply saved, whatever failed before.
+   */
   function edited(): void {
     if (status.value.state === 'conflict') return;
+    if (inFlight) {
+      // The running save re-checks the draft when it returns; only say that more is to come.
+      if (dirty.value && status.value.state !== 'saving') status.value = { state: 'pending' };
+      return;
+    }
     cancelTimer();
     if (!dirty.value) {
-      if (status.value.state === 'pending') status.value = { state: 'saved' };
+      status.value = { state: 'saved' };
       return;
     }
     status.value = { state: 'pending' };
@@ -127,13 +146,15 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
     inFlight = (async () => {
       try {
         const saved = await setsApi.updateSet(teamId.value!, base.id, { version: base.version, ...sent });
+        // The page was closed or moved to another set meanwhile: nothing here to update.
+        if (current.value?.id !== base.id || !draft.value) return;
         // No edit since sending: take the server's copy (trimmed text, ids) as the draft, so the
-        // page is not left "not saved" by differences the server made itself.
-        const unchanged = draftKey(draft.value!) === sentKey;
-        adopt(saved, !unchanged);
-        status.value = unchanged ? { state: 'saved' } : { state: 'pending' };
+        // page is not left "not saved" by differences the server made itself. An edit made
+        // meanwhile stays in the draft and goes out with the next save.
+        adopt(saved, draftKey(draft.value) !== sentKey);
         void refreshResults().catch(() => undefined);
       } catch (error) {
+        if (current.value?.id !== base.id) return;
         const stale = setsApi.conflictOf(error);
         if (stale) {
           conflict.value = stale;
@@ -141,18 +162,17 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
             state: 'conflict',
             reason: `${stale.current.updatedBy} saved version ${stale.currentVersion} while you were editing.`,
           };
-        } else {
-          const retry =
-            !(error instanceof ApiError) || error.status === 0 || error.status >= 500 || error.status === 429;
-          status.value = { state: 'failed', reason: apiErrorText(error), retry };
-        }
+        } else status.value = { state: 'failed', ...saveFailure(error, sent) };
       } finally {
         inFlight = null;
       }
     })();
     await inFlight;
-    // The status changed while awaiting (TypeScript cannot see that).
-    if ((status.value as SaveStatus).state === 'pending') edited();
+    // The status follows the same comparison as the page's note: saved only when the draft equals
+    // the set as saved; an edit made while sending is saved next.
+    const after = status.value as SaveStatus;
+    const editedSince = draft.value !== null && draftKey(draft.value) !== sentKey;
+    if (after.state === 'saving' || after.state === 'pending' || (after.state === 'failed' && editedSince)) edited();
   }
 
   /** Drops the local edit and shows the set as it is now on the server. */
@@ -223,6 +243,7 @@ export const useReactionSetStore = defineStore('reaction-sets', () => {
     listLoading,
     loadList,
     teamId,
+    editable,
     current,
     draft,
     status,

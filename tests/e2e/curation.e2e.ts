@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { baseUrl, screenshot, signIn, signOut, unique, useBrowser } from './helpers';
+import { baseUrl, navLink, screenshot, signIn, signOut, unique, useBrowser } from './helpers';
 
 const browser = useBrowser({ viewport: { width: 1360, height: 1800 } });
 
@@ -70,8 +70,8 @@ describe('curation', () => {
 
     // The curator sees it in the queue (with the count in the navigation), comments and accepts.
     await signIn(page, 'curator');
-    await page.getByTestId('nav-amendments-count').waitFor();
-    await page.getByTestId('nav-amendments').click();
+    await page.getByTestId('nav-amendments-count').waitFor({ state: 'attached' });
+    await (await navLink(page, 'amendments')).click();
     const row = page.getByTestId('queue-row').filter({ hasText: title });
     await row.first().waitFor();
     await screenshot(page, 'curation-queue');

@@ -140,10 +140,25 @@ export async function signOut(page: Page): Promise<void> {
   await page.getByTestId('sign-in-link').waitFor();
 }
 
+/**
+ * An area link of the header, ready to click: links that do not fit the row sit under "More",
+ * which is opened first when the link is there.
+ */
+export async function navLink(page: Page, key: string): Promise<Locator> {
+  const link = page.getByTestId(`nav-${key}`);
+  await link.waitFor({ state: 'attached' });
+  if (!(await link.isVisible())) {
+    const more = page.getByTestId('nav-more');
+    if ((await more.getAttribute('aria-expanded')) !== 'true') await more.click();
+    await link.waitFor();
+  }
+  return link;
+}
+
 /** Opens the current team's page from the header's nav (team ids are made by the database). */
 export async function openTeamArea(page: Page, area: 'notes' | 'members' | 'sets'): Promise<void> {
   await page.goto('/');
-  await page.getByTestId(`nav-${area}`).click();
+  await (await navLink(page, area)).click();
   await page.waitForURL(new RegExp(`/teams/[^/]+/${area}$`));
 }
 

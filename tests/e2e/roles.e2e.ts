@@ -5,7 +5,9 @@ import {
   fieldMessage,
   demoPassword,
   fillSignIn,
+  navLink,
   openTeamArea,
+  type Role,
   screenshot,
   signIn,
   signOut,
@@ -66,7 +68,7 @@ describe('signing in and what each role sees', () => {
   it('shows the viewer team areas without Admin, and the not-allowed view on an admin page', async () => {
     const { page } = browser;
     await signIn(page, 'viewer');
-    await page.getByTestId('nav-notes').waitFor();
+    await page.getByTestId('nav-notes').waitFor({ state: 'attached' });
     expect(await page.getByTestId('nav-members').count()).toBe(1);
     expect(await page.getByTestId('nav-admin').count()).toBe(0);
     await page.goto('/admin/users');
@@ -138,7 +140,7 @@ describe('signing in and what each role sees', () => {
     await page.getByTestId('reset-sent').waitFor();
 
     await signIn(page, 'siteAdmin');
-    await page.getByTestId('nav-admin').click();
+    await (await navLink(page, 'admin')).click();
     await page.getByTestId('admin-users-table').waitFor();
     await page.getByRole('link', { name: 'Outbox' }).click();
     const message = page.getByTestId('outbox-message').filter({ hasText: accounts.curator }).first();
@@ -149,4 +151,93 @@ describe('signing in and what each role sees', () => {
     expect(await text.locator('a').count()).toBeGreaterThan(0);
     await screenshot(page, 'admin-outbox');
   });
+});
+
+/** What the header of each role must show: every area link, none clipped, at every width. */
+const HEADER_ROLES: { role: Role; areas: string[] }[] = [
+  { role: 'viewer', areas: ['workbench', 'library', 'derive', 'calorimetry', 'sets', 'notes', 'members'] },
+  {
+    role: 'member',
+    areas: ['workbench', 'library', 'derive', 'calorimetry', 'sets', 'amendments', 'notes', 'members'],
+  },
+  {
+    role: 'teamAdmin',
+    areas: ['workbench', 'library', 'derive', 'calorimetry', 'sets', 'amendments', 'notes', 'members'],
+  },
+  {
+    role: 'curator',
+    areas: ['workbench', 'library', 'derive', 'calorimetry', 'sets', 'amendments', 'notes', 'members'],
+  },
+  { role: 'siteAdmin', areas: ['workbench', 'library', 'derive', 'calorimetry', 'admin'] },
+];
+const HEADER_WIDTHS = [1440, 1280, 1024, 768, 390];
+
+describe('the header at every width', () => {
+  for (const { role, areas } of HEADER_ROLES) {
+    it(`shows every area of ${role} unclipped from 1440 to 390 px, the rest under More, the page marked`, async () => {
+      const { page } = browser;
+      await signIn(page, role);
+      // A team page, so the current page is marked wherever its link sits.
+      const start = areas.includes('members') ? 'members' : 'admin';
+      await (await navLink(page, start)).click();
+      await page.waitForURL(start === 'members' ? /\/members$/ : /\/admin\//);
+      for (const width of HEADER_WIDTHS) {
+        await page.setViewportSize({ width, height: 800 });
+        // The row is laid out again after a resize observer's callback.
+        await expect
+          .poll(async () => {
+            const problems = await page.evaluate(() => {
+              const out: string[] = [];
+              const viewport = document.documentElement.clientWidth;
+              const nav = document.querySelector('nav[aria-label="Areas"]')!;
+              const navBox = nav.getBoundingClientRect();
+              const others = [
+                ...document.querySelectorAll(
+                  '[data-testid="team-switcher"], [data-testid="team-name"], [data-testid="account-menu"], [data-testid="theme-toggle"]',
+                ),
+              ]
+                .map((el) => el.getBoundingClientRect())
+                .filter((r) => r.width > 0);
+              const inRow = [...nav.querySelectorAll(':scope > a, :scope > .more > button')];
+              for (const el of inRow) {
+                const r = el.getBoundingClientRect();
+                const name = el.textContent!.trim();
+                if (r.width === 0) out.push(`${name} has no size`);
+                if (r.left < 0 || r.right > viewport + 0.5) out.push(`${name} leaves the viewport`);
+                if (r.right > navBox.right + 0.5) out.push(`${name} is cut off by the nav row`);
+                for (const o of others)
+                  if (r.right > o.left && r.left < o.right && r.bottom > o.top && r.top < o.bottom)
+                    out.push(`${name} lies under the team name or account menu`);
+              }
+              // The header itself never scrolls or overflows (a page's own content is its own matter).
+              const header = document.querySelector('header')!;
+              if (header.scrollWidth > header.clientWidth + 1) out.push('the header overflows');
+              if (header.getBoundingClientRect().right > viewport + 0.5)
+                out.push('the header is wider than the window');
+              return out;
+            });
+            return problems;
+          })
+          .toEqual([]);
+        // Every area is reachable: in the row, or under More.
+        for (const key of areas) expect(await page.getByTestId(`nav-${key}`).count(), `${key} at ${width}`).toBe(1);
+        // The page shown is marked, in the row.
+        const current = page.locator('nav[aria-label="Areas"] > a[aria-current="page"]');
+        expect(await current.count(), `current page at ${width}`).toBe(1);
+        expect(await current.getAttribute('data-testid')).toBe(`nav-${start}`);
+        await screenshot(page, `header-${role}-${width}`);
+      }
+      // More opens from the keyboard, its links are reachable with Tab, and Escape closes it.
+      const more = page.getByTestId('nav-more');
+      await more.focus();
+      await page.keyboard.press('Enter');
+      expect(await more.getAttribute('aria-expanded')).toBe('true');
+      await page.keyboard.press('Tab');
+      const focused = await page.evaluate(() => document.activeElement?.getAttribute('data-testid') ?? '');
+      expect(focused).toMatch(/^nav-/);
+      await page.keyboard.press('Escape');
+      expect(await more.getAttribute('aria-expanded')).toBe('false');
+      expect(await page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).toBe('nav-more');
+    });
+  }
 });

@@ -35,6 +35,10 @@ describe('reaction sets', () => {
       .poll(() => page.getByTestId('save-status').textContent(), { timeout: 15_000 })
       .toContain('All changes saved');
     await page.getByRole('tab', { name: 'Results' }).click();
+    // Saved means saved: once the save lands the page stops calling the draft unsaved.
+    await expect
+      .poll(() => page.getByText('Results are for the last saved version.').count(), { timeout: 15_000 })
+      .toBe(0);
     const figures = page.getByTestId('item-delta-h');
     await expect.poll(() => figures.count(), { timeout: 15_000 }).toBe(2);
     const teamFigures = await figures.allTextContents();
@@ -133,5 +137,48 @@ describe('reaction sets', () => {
     );
     // Both edits kept: nothing silently overwritten.
     expect(saved).toMatchObject({ title: `${title} renamed`, description: 'changed elsewhere', version: 3 });
+  });
+
+  it('says which item and field a refused save is about, asks before leaving with it, and saves once fixed', async () => {
+    const { page } = browser;
+    await signIn(page, 'member');
+    const teamId = await page.evaluate(async () => {
+      const session = await (await fetch('/api/v1/session')).json();
+      return session.teams[0].id as string;
+    });
+    const created = await page.evaluate(
+      async ({ teamId, title }) => {
+        const res = await fetch(`/api/v1/teams/${teamId}/sets`, {
+          method: 'POST',
+          headers: { 'Content-Type': 'application/json' },
+          body: JSON.stringify({ title, items: [{ kind: 'note', text: 'first' }] }),
+        });
+        return (await res.json()) as { id: string };
+      },
+      { teamId, title: unique('Refused set') },
+    );
+    await page.goto(`/teams/${teamId}/sets/${created.id}`);
+    await page.getByRole('tab', { name: 'Edit' }).click();
+    await page.getByTestId('add-reaction').click();
+    const status = page.getByTestId('save-status');
+    await expect
+      .poll(() => status.textContent(), { timeout: 15_000 })
+      .toContain('item 2 (Reaction: ), Equation: Type the equation.');
+
+    // Leaving with the refused edit asks first; staying keeps the page and the edit.
+    let asked = '';
+    page.once('dialog', (dialog) => {
+      asked = dialog.message();
+      void dialog.dismiss();
+    });
+    await page.getByTestId('nav-workbench').click();
+    await expect.poll(() => asked).toContain('Leave anyway');
+    expect(new URL(page.url()).pathname).toBe(`/teams/${teamId}/sets/${created.id}`);
+
+    await page.getByLabel('Equation').last().fill(PROPANE);
+    await expect.poll(() => status.textContent(), { timeout: 15_000 }).toContain('All changes saved');
+    await page.getByRole('tab', { name: 'Results' }).click();
+    await expect.poll(() => page.getByTestId('item-delta-h').count(), { timeout: 15_000 }).toBe(1);
+    expect(await page.getByText('Results are for the last saved version.').count()).toBe(0);
   });
 });

@@ -208,6 +208,80 @@ describe('GET …/export.pdf', () => {
   });
 });
 
+describe('GET …/export.pdf in the calculation workers', () => {
+  /** A set whose PDF takes a while to typeset: long notes fill many pages (cheap to evaluate). */
+  async function longSet(title: string) {
+    const paragraph = 'Heat removal at scale depends on the jacket, the stirrer and the feed rate. '.repeat(18);
+    const items = Array.from({ length: 60 }, (_, i) => ({ kind: 'note', text: `${i + 1}. ${paragraph}` }));
+    const res = await member.post(setsUrl()).send({ title, items });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    return res.body as { id: string };
+  }
+
+  it('answers health checks while PDFs are being typeset', async () => {
+    // Warm a worker first, so the PDFs below are typesetting (not loading) while health is asked.
+    const warm = await makeSet();
+    expect((await member.get(`${setsUrl()}/${warm.id}/export.pdf`)).status).toBe(200);
+    const sets = await Promise.all([longSet('Long notes A'), longSet('Long notes B')]);
+    const order: string[] = [];
+    const pdfs = sets.map((set) =>
+      member
+        .get(`${setsUrl()}/${set.id}/export.pdf`)
+        .buffer(true)
+        .parse(binary)
+        .then((res) => {
+          order.push(`pdf ${res.status}`);
+          return res;
+        }),
+    );
+    const calc = t.app.locals.deps.calc;
+    while (calc.inFlight === 0) await new Promise((r) => setImmediate(r));
+    for (let i = 0; i < 3; i++) order.push(`health ${(await t.anon().get('/api/v1/health')).status}`);
+    const stillRunning = calc.inFlight > 0;
+    const replies = await Promise.all(pdfs);
+    expect(stillRunning).toBe(true);
+    expect(order.slice(0, 3)).toEqual(['health 200', 'health 200', 'health 200']);
+    for (const res of replies) expect((res.body as Buffer).subarray(0, 5).toString()).toBe('%PDF-');
+  });
+
+  it('stops a PDF past the time budget with 503 in words and Retry-After', async () => {
+    const hasty = await startTestApp({
+      open: { ...t.open, close: async () => {} },
+      config: { calc: { timeBudgetMs: 1 } },
+    });
+    try {
+      const set = await makeSet();
+      const agent = await hasty.signIn('member');
+      const res = await agent.get(`${setsUrl()}/${set.id}/export.pdf`);
+      expect(res.status).toBe(503);
+      expect(res.body.error.code).toBe('unavailable');
+      expect(res.body.error.message).toMatch(/PDF report did not finish within its time budget/);
+      expect(res.body.error.details).toMatchObject({ limit: 'timeBudgetMs', max: 1 });
+      expect(res.headers['retry-after']).toBe('1');
+    } finally {
+      await hasty.close();
+    }
+  });
+
+  it('refuses a PDF larger than the reply limit with 413 naming the limit', async () => {
+    const small = await startTestApp({
+      open: { ...t.open, close: async () => {} },
+      config: { calc: { limits: { maxReplyBytes: 20_000 } } },
+    });
+    try {
+      const set = await longSet('Too long for the limit');
+      const agent = await small.signIn('member');
+      const res = await agent.get(`${setsUrl()}/${set.id}/export.pdf`);
+      expect(res.status).toBe(413);
+      expect(res.body.error.code).toBe('payload_too_large');
+      expect(res.body.error.details).toMatchObject({ limit: 'replyBytes', max: 20_000 });
+      expect(res.body.error.details.found).toBeGreaterThan(20_000);
+    } finally {
+      await small.close();
+    }
+  });
+});
+
 describe('exports through a share link', () => {
   it('serves the same files at /api/v1/shared/:token/export.*, without an account', async () => {
     const set = await makeSet();
