@@ -42,18 +42,18 @@ describe('ImportReportTable', () => {
     const wrapper = mount(ImportReportTable, { props: { problems } });
     const rows = wrapper.findAll('[data-testid="import-problem"]');
     expect(rows).toHaveLength(25);
-    expect(rows[0]!.findAll('td').map((td) => td.text())).toEqual([
-      '2',
-      'value',
-      '"x0" is not a number.',
-      'values.csv',
-    ]);
-    expect(wrapper.get('[data-testid="import-report-summary"]').text()).toBe('30 problems in 30 rows of 1 file.');
+    expect(rows[0]!.findAll('td').map((td) => td.text())).toEqual(['2', 'value', '"x0" is not a number.']);
+    expect(wrapper.get('[data-testid="import-report-summary"]').text()).toBe(
+      '30 problems in 30 rows of 1 file. File: values.csv.',
+    );
   });
 
-  it('shows every row on one page when there are few', () => {
-    const wrapper = mount(ImportReportTable, { props: { problems: problems.slice(0, 3) } });
-    expect(wrapper.findAll('[data-testid="import-problem"]')).toHaveLength(3);
+  it('shows every row on one page when there are few, with a file column when the rows come from several files', () => {
+    const two = [...problems.slice(0, 2), { file: 'species.csv', line: 4, column: 'key', reason: 'Does not parse.' }];
+    const wrapper = mount(ImportReportTable, { props: { problems: two } });
+    const rows = wrapper.findAll('[data-testid="import-problem"]');
+    expect(rows).toHaveLength(3);
+    expect(rows[0]!.findAll('td').map((td) => td.text())).toEqual(['4', 'key', 'Does not parse.', 'species.csv']);
   });
 });
 
