@@ -20,7 +20,7 @@ export const tableColumns: Record<ImportTable, readonly string[]> = {
 };
 
 /** Every column each table may have (FORMAT.md, plus `selected` on values from our CSV export). */
-const knownColumns: Record<ImportTable, readonly string[]> = {
+export const knownColumns: Record<ImportTable, readonly string[]> = {
   sources: seedFileHeaders.sources,
   species: seedFileHeaders.species,
   values: [...seedFileHeaders.values, 'selected'],

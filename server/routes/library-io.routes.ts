@@ -4,12 +4,15 @@ import {
   exportQuerySchema,
   importFieldsSchema,
   importJobParamsSchema,
+  importLimitsSchema,
+  importTables,
   importJobSchema,
   libraryExportSchema,
 } from '@shared/schemas/library-io';
 import { requireActor } from '../context';
 import { AppError } from '../errors';
 import type { UploadedFile } from '../services/amendment-files.service';
+import { knownColumns, tableColumns } from '../library-io/rows-to-entries';
 import { exportLibraryCsv, exportLibraryJson, importJob, startImport } from '../services/library-io.service';
 import { defineRoute, ReplyWithStatus } from './registry';
 
@@ -46,6 +49,24 @@ export const libraryIoRoutes = [
       });
       return new ReplyWithStatus(wait ? 201 : 202, job);
     },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/amendments/imports/limits',
+    summary: 'What an import takes: file size, file count and row limits, and the columns of each table',
+    description:
+      'Read from the server settings (EVIDENCE_MAX_FILE_MB, EVIDENCE_MAX_FILES_PER_UPLOAD) and seeds/library/FORMAT.md, so the import page never copies them.',
+    tags: ['amendments'],
+    access: 'proposer',
+    responses: { 200: importLimitsSchema },
+    handler: ({ ctx }) => ({
+      maxFileBytes: ctx.config.evidence.maxFileBytes,
+      maxFiles: ctx.config.evidence.maxFilesPerUpload,
+      maxRows: MAX_IMPORT_ROWS,
+      tables: Object.fromEntries(
+        importTables.map((t) => [t, { required: [...tableColumns[t]], columns: [...knownColumns[t]] }]),
+      ) as Record<(typeof importTables)[number], { required: string[]; columns: string[] }>,
+    }),
   }),
   defineRoute({
     method: 'get',

@@ -54,6 +54,19 @@ export const importFieldsSchema = z.object({
   rationale: z.string().trim().min(1).max(10_000).optional(),
 });
 
+/** GET /api/v1/amendments/imports/limits: what an import takes, read from the server's settings. */
+export const importLimitsSchema = z.object({
+  /** Largest file, bytes (the evidence file limit). */
+  maxFileBytes: z.number().int(),
+  /** Most files in one import. */
+  maxFiles: z.number().int(),
+  /** Most data rows across all files. */
+  maxRows: z.number().int(),
+  /** Per table: the columns that tell it apart (required) and every column it reads. */
+  tables: z.record(z.enum(importTables), z.object({ required: z.array(z.string()), columns: z.array(z.string()) })),
+});
+export type ImportLimits = z.infer<typeof importLimitsSchema>;
+
 export const exportQuerySchema = z.object({ revision: revisionNumberSchema.optional() });
 
 // ——— The JSON export ———

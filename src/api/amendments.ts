@@ -16,6 +16,7 @@ import {
   type NotificationSettings,
   type NotificationSettingsInput,
 } from '@shared/schemas/notifications';
+import { importJobSchema, importLimitsSchema, type ImportJob, type ImportLimits } from '@shared/schemas/library-io';
 import { API_BASE, http } from './http';
 
 const base = '/amendments';
@@ -106,4 +107,34 @@ export function getNotificationSettings(): Promise<NotificationSettings> {
 
 export function updateNotificationSettings(input: NotificationSettingsInput): Promise<NotificationSettings> {
   return http.patch('/account/notifications', input, { schema: notificationSettingsSchema });
+}
+
+// ——— Bulk import ———
+
+/** What an import takes (file size, count, rows) and each table's columns, from the server's settings. */
+export function importLimits(signal?: AbortSignal): Promise<ImportLimits> {
+  return http.get(`${base}/imports/limits`, { schema: importLimitsSchema, ...(signal ? { signal } : {}) });
+}
+
+/** Starts an import of library tables (multipart field `files`); answers 202 with the job to poll. */
+export function startImport(input: { files: File[]; title?: string; rationale?: string }): Promise<ImportJob> {
+  const form = new FormData();
+  if (input.title) form.append('title', input.title);
+  if (input.rationale) form.append('rationale', input.rationale);
+  for (const f of input.files) form.append('files', f, f.name);
+  return http.post(`${base}/imports`, form, { schema: importJobSchema });
+}
+
+/** An import job's progress and outcome (only for the user who started it). */
+export function getImportJob(jobId: string, signal?: AbortSignal): Promise<ImportJob> {
+  return http.get(`${base}/imports/${encodeURIComponent(jobId)}`, {
+    schema: importJobSchema,
+    ...(signal ? { signal } : {}),
+  });
+}
+
+/** Where the library's values download as CSV (the import's values table), at a revision or the newest. */
+export function libraryExportHref(format: 'csv' | 'json', revision?: number | null): string {
+  const query = revision ? `?revision=${revision}` : '';
+  return `${API_BASE}/library/export.${format}${query}`;
 }

@@ -1,5 +1,7 @@
 import {
   revisionListSchema,
+  sourceListSchema,
+  type SourceList,
   speciesDetailSchema,
   speciesListSchema,
   type RevisionList,
@@ -28,4 +30,13 @@ export function getSpecies(id: string, revision?: number | null, signal?: AbortS
 /** Every library revision, newest first. */
 export function listRevisions(signal?: AbortSignal): Promise<RevisionList> {
   return http.get('/library/revisions', { schema: revisionListSchema, ...(signal ? { signal } : {}) });
+}
+
+/** Every source of the library (at a revision), with how many values, models and reactions cite it. */
+export function listSources(revision?: number | null, signal?: AbortSignal): Promise<SourceList> {
+  return http.get('/sources', {
+    query: { revision: revision ?? undefined },
+    schema: sourceListSchema,
+    ...(signal ? { signal } : {}),
+  });
 }

@@ -63,6 +63,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { access: 'signed_in', title: 'New amendment' },
   },
   {
+    path: '/amendments/import',
+    name: 'amendment-import',
+    component: () => import('@/views/ImportAmendmentView.vue'),
+    meta: { access: 'signed_in', title: 'Import library tables' },
+  },
+  {
     path: '/amendments/:amendmentId',
     name: 'amendment',
     component: () => import('@/views/AmendmentView.vue'),

@@ -46,7 +46,35 @@ const newAmendment: Step = {
   name: 'amendments, new amendment form',
   open: async (page) => {
     await page.goto('/amendments/new');
-    await page.getByTestId('propose-form').waitFor();
+    await page.getByTestId('new-amendment-form').waitFor();
+  },
+};
+const newAmendmentKinds: Step = {
+  name: 'amendments, new amendment with the source and deprecation forms',
+  open: async (page) => {
+    await page.goto('/amendments/new');
+    await page.getByTestId('entry-kind-set-source').click();
+    await page.getByTestId('entry-form-set-source').waitFor();
+    await page.getByTestId('entry-add').click();
+    await page.getByTestId('entry-kind-deprecate').click();
+    await page.getByTestId('entry-form-deprecate').waitFor();
+  },
+};
+/** The import page after a refused upload: the progress bar and the report of bad rows. */
+const importReport: Step = {
+  name: 'amendments, import with a report of bad rows',
+  open: async (page) => {
+    await page.goto('/amendments/import');
+    await page.getByTestId('import-limits').waitFor();
+    const csv = [
+      'species,property,value,unit,uncertainty_kind,uncertainty,k,source,table,entry_note,provenance,pressure_bar,ion_convention,note',
+      'CO2(g),dfH298,minus four,kJ/mol,standard,0.2,,codata-1989,,,entered,1,,',
+    ].join('\n');
+    await page
+      .getByTestId('import-files')
+      .setInputFiles({ name: 'values.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await page.getByTestId('import-start').click();
+    await page.getByTestId('import-report').waitFor();
   },
 };
 const proposeFromSpecies: Step = {
@@ -230,6 +258,8 @@ const walks: Record<Role | 'anonymous', Step[]> = {
     teamDerivedValues,
     amendmentQueue,
     newAmendment,
+    newAmendmentKinds,
+    importReport,
     proposeFromSpecies,
     sets,
   ],

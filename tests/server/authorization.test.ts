@@ -66,6 +66,7 @@ const expectedAccess: Record<string, Access> = {
   'GET /api/v1/amendments/counts': 'signed_in',
   'POST /api/v1/amendments': 'proposer',
   'POST /api/v1/amendments/imports': 'proposer',
+  'GET /api/v1/amendments/imports/limits': 'proposer',
   'GET /api/v1/amendments/imports/:jobId': 'proposer',
   'GET /api/v1/library/export.json': 'public',
   'GET /api/v1/library/export.csv': 'public',

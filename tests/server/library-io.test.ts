@@ -131,6 +131,19 @@ describe('import', () => {
     expect(other.status).toBe(404);
   });
 
+  it('tells the import page its limits and the columns of each table, from the server settings', async () => {
+    const member = await t.signIn('member');
+    const res = await member.get('/api/v1/amendments/imports/limits');
+    expect(res.status).toBe(200);
+    expect(res.body.maxFileBytes).toBe(t.config.evidence.maxFileBytes);
+    expect(res.body.maxFiles).toBe(t.config.evidence.maxFilesPerUpload);
+    expect(res.body.maxRows).toBe(20_000);
+    // The values header of seeds/library/FORMAT.md, plus `selected` of our CSV export.
+    expect(res.body.tables.values.columns).toEqual([...valuesHeader.split(','), 'selected']);
+    expect(res.body.tables.selections.required).toEqual(['species', 'property', 'source', 'reason']);
+    expect((await t.anon().get('/api/v1/amendments/imports/limits')).status).toBe(401);
+  });
+
   it('imports a 10,000-row CSV into one amendment', async () => {
     const library = await exportJson();
     const species = library.species.filter((s) => s.referenceState === null).slice(0, 1_000);
