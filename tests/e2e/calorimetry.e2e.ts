@@ -1,6 +1,7 @@
 /**
  * Calorimetry: a member uploads a run's time–temperature readings, maps the columns, reduces the
- * run and keeps it with the team. The readings are an invented run, generated here from Newton's
+ * run, keeps it with the team, proposes it to the library with the readings file as evidence,
+ * saves it to a reaction set whose page shows the same ΔH, and opens it back in /calorimetry. The readings are an invented run, generated here from Newton's
  * law with a first-order heat release (tests/shared/chemistry/calorimetry/support.ts).
  */
 import { describe, expect, it } from 'vitest';
@@ -25,7 +26,7 @@ function readingsCsv(): string {
 }
 
 describe('calorimetry page', () => {
-  it('lets a member reduce a constant-pressure run from uploaded readings and save it to the team', async () => {
+  it('lets a member reduce a run from uploaded readings, save it to the team and a set, and propose it', async () => {
     const { page } = browser;
     await signIn(page, 'member');
     await page.getByTestId('nav-calorimetry').click();
@@ -82,5 +83,59 @@ describe('calorimetry page', () => {
     } finally {
       await api.dispose();
     }
+
+    // Propose: the draft amendment carries the run data and the readings file as evidence.
+    await page.getByTestId('propose-run').click();
+    const proposed = page.getByTestId('run-proposed');
+    await expect.poll(() => proposed.textContent(), { timeout: 15_000 }).toContain('as evidence');
+    const amendmentPath = (await proposed.getByRole('link').getAttribute('href'))!;
+    const amendmentId = amendmentPath.split('/').pop()!;
+    const member = await apiAs('member');
+    try {
+      const amendment = (await (await member.api.get(`/api/v1/amendments/${amendmentId}`)).json()) as {
+        rationale: string;
+        files: { name: string; mediaType: string }[];
+      };
+      expect(amendment.files).toEqual([
+        expect.objectContaining({ name: 'neutralisation-run-1.csv', mediaType: 'text/csv' }),
+      ]);
+      expect(amendment.rationale).toMatch(/ΔH = −q\/ξ/);
+      expect(amendment.rationale).toMatch(/Drift \(heat exchange\) applied/);
+    } finally {
+      await member.api.dispose();
+    }
+
+    // Save to a new reaction set; its page shows the server's ΔH for the run, the same figure.
+    const figureOf = (text: string | null) =>
+      Number(
+        (text ?? '')
+          .replace(/[^\d.\u2212-]+/g, ' ')
+          .trim()
+          .replace('\u2212', '-')
+          .split(/\s/)[0],
+      );
+    const pageDeltaH = figureOf(await deltaH.textContent());
+    await page.getByTestId('save-to-set').click();
+    const title = unique('Calorimetry set');
+    await page.getByTestId('new-set-title').fill(title);
+    await page.getByTestId('save-to-set-confirm').click();
+    await page.getByTestId('saved-set-link').click();
+    await page.waitForURL(/\/sets\/[^/]+$/);
+    const setFigure = page.getByTestId('item-delta-h');
+    await expect.poll(() => setFigure.count(), { timeout: 20_000 }).toBe(1);
+    // Both are rounded to the uncertainty: they agree within the last digit shown.
+    expect(Math.abs(figureOf(await setFigure.textContent()) - pageDeltaH)).toBeLessThan(0.15);
+    expect(await page.getByTestId('set-results').textContent()).toContain('Readings file: neutralisation-run-1.csv');
+    expect(await page.getByTestId('set-cautions').textContent()).toMatch(/maker|instructions/i);
+    await screenshot(page, 'calorimetry-set');
+
+    // The item opens back in /calorimetry with its inputs, reduced again.
+    await page.getByRole('tab', { name: 'Edit' }).click();
+    await page.getByTestId('open-item-1').click();
+    await page.waitForURL(/\/calorimetry\?/);
+    await page.getByTestId('calorimetry-opened-from').waitFor();
+    await expect.poll(() => page.getByTestId('cp-deltaH').count(), { timeout: 15_000 }).toBe(1);
+    expect(figureOf(await page.getByTestId('cp-deltaH').textContent())).toBeCloseTo(pageDeltaH, 6);
+    expect(await page.getByTestId('cp-loaded-readings').textContent()).toContain('neutralisation-run-1.csv');
   });
 });
