@@ -117,7 +117,7 @@ describe('calorimetry page', () => {
     const pageDeltaH = figureOf(await deltaH.textContent());
     await page.getByTestId('save-to-set').click();
     const title = unique('Calorimetry set');
-    await page.getByTestId('new-set-title').fill(title);
+    await page.getByTestId('new-set-title').locator('input').fill(title);
     await page.getByTestId('save-to-set-confirm').click();
     await page.getByTestId('saved-set-link').click();
     await page.waitForURL(/\/sets\/[^/]+$/);
