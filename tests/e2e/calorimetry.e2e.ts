@@ -126,7 +126,8 @@ describe('calorimetry page', () => {
     // Both are rounded to the uncertainty: they agree within the last digit shown.
     expect(Math.abs(figureOf(await setFigure.textContent()) - pageDeltaH)).toBeLessThan(0.15);
     expect(await page.getByTestId('set-results').textContent()).toContain('Readings file: neutralisation-run-1.csv');
-    expect(await page.getByTestId('set-cautions').textContent()).toMatch(/maker|instructions/i);
+    // The run's own cautions (runaway at scale, acid into water) join the set's.
+    expect(await page.getByTestId('set-cautions').textContent()).toMatch(/run away/);
     await screenshot(page, 'calorimetry-set');
 
     // The item opens back in /calorimetry with its inputs, reduced again.
