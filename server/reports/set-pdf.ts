@@ -297,6 +297,7 @@ function writeCalorimetryRun(
     report.para(
       `q = ${valueWithUncertainty(r.q.value, r.q.uncertainty)} kJ; corrected ΔT = ${valueWithUncertainty(r.deltaT.value, r.deltaT.uncertainty)} K; extent ξ = ${plainFigure(r.extent.value)} mol (limiting ${typesetFormula(r.limiting.species)})`,
     );
+    report.para(r.basis, { size: 9.5 });
   } else {
     const r = c.result;
     report.para(`ΔcH° = ${energy(r.deltaCH)} of the sample (measured)`, { font: 'bold' });

@@ -32,16 +32,15 @@ function temperatureMethod(t: { series?: unknown; method?: keyof typeof DRIFT_WO
 
 function constantPressureSummary(
   inputs: ConstantPressureInput,
-  value: Extract<CalorimetryRunValue, { runKind: 'constant-pressure' }>,
+  _value: Extract<CalorimetryRunValue, { runKind: 'constant-pressure' }>,
 ): RunSummary {
-  const r = value.result;
   const calibration = inputs.calibration
     ? `calibration: ${inputs.calibration.runs.length} run(s), ${[...new Set(inputs.calibration.runs.map((c) => (c.kind === 'electrical' ? 'electrical (I·V·t)' : 'hot/cold water mixing')))].join(' and ')}`
     : inputs.calorimeterHeatCapacity
       ? 'heat capacity typed'
       : 'none given: the calorimeter is taken to absorb no heat (0 J/K)';
   return {
-    method: `Constant pressure: q = (m·c + C_cal)·ΔT, ΔH = −q/ξ per mole of reaction as written (${r.basis})`,
+    method: 'Constant pressure: q = (m·c + C_cal)·ΔT, ΔH = −q/ξ per mole of reaction as written',
     corrections: [
       temperatureMethod(inputs.temperature),
       {

@@ -167,7 +167,7 @@ const calorimetry: Step = {
 const calorimetryBomb: Step = {
   name: 'calorimetry, bomb tab with a result',
   open: async (page) => {
-    await page.getByRole('tab', { name: 'Bomb (constant volume)' }).click();
+    await page.getByText('Bomb (constant volume)', { exact: true }).click();
     await page.getByRole('textbox', { name: 'Sample formula' }).fill('C10H8');
     await page.getByText('Typed', { exact: true }).click();
     await page.getByRole('textbox', { name: 'Energy equivalent (J/K)' }).fill('10170');
