@@ -139,4 +139,53 @@ describe('calorimetry page', () => {
     expect(figureOf(await page.getByTestId('cp-deltaH').textContent())).toBeCloseTo(pageDeltaH, 6);
     expect(await page.getByTestId('cp-loaded-readings').textContent()).toContain('neutralisation-run-1.csv');
   });
+
+  it('reduces a bomb run with a readings file, buoyancy and a nitric-acid titration', async () => {
+    const { page } = browser;
+    await page.goto('/calorimetry');
+    await page.getByText('Bomb (constant volume)', { exact: true }).click();
+    await page.getByRole('textbox', { name: 'Sample formula' }).fill('C10H8');
+    await page.getByText('Typed', { exact: true }).click();
+    await page.getByRole('textbox', { name: 'Energy equivalent (J/K)' }).fill('10170');
+    const cell = (column: string) => page.getByRole('textbox', { name: `Sample runs, run 1: ${column}` });
+    await cell('Mass (g)').fill('1.435');
+    await cell('u(mass) (g)').fill('0.0001');
+    await cell('Fuse (J)').fill('50');
+    await cell('u(fuse) (J)').fill('2');
+    await cell('Or titrant (mL)').fill('6.0');
+    await cell('u(titrant) (mL)').fill('0.05');
+    await cell('Titrant c (mol/L)').fill('0.1');
+    await cell('Sample density (g/cm³)').fill('1.17');
+    // The rise from readings: a quiet bomb rising by about 5.67 K after firing at 300 s (invented run).
+    const rows = newtonianReadings({
+      k: 1e-4,
+      convergence: 298.5,
+      start: 298.3,
+      rise: 5.67,
+      release: 0.05,
+      mixingTime: 300,
+      step: 5,
+      end: 900,
+    }).map(([t, kelvin]) => `${t},${(kelvin - 273.15).toFixed(4)}`);
+    await page.getByTestId('readings-file').setInputFiles({
+      name: 'naphthalene-run-1.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from(['time_s,temperature_C', ...rows].join('\n'), 'utf8'),
+    });
+    await page.getByRole('textbox', { name: 'Firing time (s)' }).fill('300');
+    await page.getByTestId('bomb-use-readings').click();
+    await expect
+      .poll(() => page.getByTestId('bomb-runs-with-readings').textContent())
+      .toContain('naphthalene-run-1.csv');
+    await page.getByRole('button', { name: 'Reduce the runs' }).click();
+    const result = page.getByTestId('bomb-result');
+    await result.waitFor();
+    // ε·ΔT ≈ 10.17 kJ/K × 5.67 K ≈ 57.7 kJ from 1.435 g of C10H8 (128.17 g/mol): ΔcU ≈ −5.1 × 10³ kJ/mol
+    // (Chang's naphthalene example, from memory; the fuse and nitric-acid energies take a little off).
+    const text = (await result.textContent()) ?? '';
+    const deltaCU = Number(/ΔcU\s*([−-]?[\d.]+)/.exec(text)?.[1]?.replace('\u2212', '-'));
+    expect(deltaCU).toBeLessThan(-4900);
+    expect(deltaCU).toBeGreaterThan(-5300);
+    await screenshot(page, 'calorimetry-bomb');
+  });
 });
