@@ -74,8 +74,27 @@ export function bibtexEntry(source: Source): string {
   return `@${type}{${source.key},\n${body}\n}`;
 }
 
-/** Every source as one .bib text, with a comment naming the set and the library revision. */
-export function setBibtex(sources: readonly Source[], about: { title: string; revision: number }): string {
+/**
+ * A calibrant's certificate as cited with a bomb run (free text, e.g. "NIST SRM 39j, benzoic acid,
+ * certificate of analysis"): a @misc entry whose title is the citation as typed.
+ */
+export function certificateEntry(citation: string, key: string): string {
+  return `@misc{${key},\n  title = {{${texEscape(citation.replace(/\s+/g, ' ').trim())}}},\n  note = {Calibrant certificate of a bomb-calorimetry run}\n}`;
+}
+
+/**
+ * Every source as one .bib text, with a comment naming the set and the library revision; the
+ * calibrant certificates cited by bomb runs follow as `calibrant-1`, `calibrant-2`… in first-use order.
+ */
+export function setBibtex(
+  sources: readonly Source[],
+  about: { title: string; revision: number },
+  certificates: readonly string[] = [],
+): string {
   const header = `% Sources of the reaction set "${about.title.replace(/[\r\n@{}]+/g, ' ')}", Thermoledger library revision ${about.revision}.\n`;
-  return `${header}\n${sources.map(bibtexEntry).join('\n\n')}\n`;
+  const entries = [
+    ...sources.map(bibtexEntry),
+    ...[...new Set(certificates)].map((c, i) => certificateEntry(c, `calibrant-${i + 1}`)),
+  ];
+  return `${header}\n${entries.join('\n\n')}\n`;
 }

@@ -1,4 +1,5 @@
 import Papa from 'papaparse';
+import { GAS_CONSTANT } from '@shared/chemistry/thermo/constants';
 import { itemLabel } from '@shared/reaction-sets/diff';
 import type { ItemResult, SetEvaluation, SetItem } from '@shared/schemas/reaction-sets';
 
@@ -28,6 +29,11 @@ export const CSV_COLUMNS = [
   'library_revision',
   'sources',
   'problem',
+  'calorimetry_run',
+  'deltaT_K',
+  'q_kJ',
+  'deltaFH_kJ_per_mol',
+  'deltaFH_uncertainty_kJ_per_mol',
 ] as const;
 
 type Row = Record<(typeof CSV_COLUMNS)[number], string | number | null>;
@@ -88,6 +94,25 @@ function row(item: SetItem, result: ItemResult, revision: number, position: numb
       out.heat_direction = q.direction;
       out.adiabatic_rise_K = q.adiabaticRise;
       out.sources = q.sources.join('; ');
+      break;
+    }
+    case 'calorimetry-run': {
+      // ΔH per mole of reaction as written (constant pressure) or ΔcH° of the sample (bomb).
+      const c = result.value!;
+      out.equation = c.equation;
+      out.calorimetry_run = c.runKind;
+      out.deltaH_kJ_per_mol = c.deltaH.value;
+      out.uncertainty_kJ_per_mol = c.deltaH.uncertainty;
+      out.sources = c.sources.join('; ');
+      if (c.runKind === 'constant-pressure') {
+        out.deltaT_K = c.result.deltaT.value;
+        out.q_kJ = c.result.q.value;
+      } else {
+        // The temperature of Δn(gas)·R·T, read back from RT (kJ/mol).
+        out.temperature_K = (c.result.rt * 1000) / GAS_CONSTANT;
+        out.deltaFH_kJ_per_mol = c.result.deltaFH?.value ?? null;
+        out.deltaFH_uncertainty_kJ_per_mol = c.result.deltaFH?.uncertainty ?? null;
+      }
       break;
     }
   }

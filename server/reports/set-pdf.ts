@@ -2,9 +2,11 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import PDFDocument from 'pdfkit';
 import { formatEquation, formatFormula, parseEquation, parseFormula } from '@shared/chemistry/index';
+import { calorimetryRunSummary } from '@shared/reaction-sets/calorimetry-summary';
 import { itemLabel } from '@shared/reaction-sets/diff';
 import type { Source } from '@shared/schemas/library';
 import type { ItemResult, SetEvaluation, SetItem, SetState } from '@shared/schemas/reaction-sets';
+import type { CalorimetryRunValue } from '@shared/schemas/reaction-sets-calorimetry';
 import { kelvin, plainFigure, valueWithUncertainty } from './numbers';
 
 /**
@@ -272,12 +274,64 @@ function writeItem(report: Report, item: SetItem, result: ItemResult | undefined
     case 'note':
       report.para(item.text || '(empty note)', { size: 10 });
       return;
-    default:
-      report.para('Calorimetry run: kept with the set; its evaluation arrives with the calorimetry work.', {
-        size: 9.5,
-        color: MUTED,
-      });
+    case 'calorimetry-run': {
+      const c = result?.kind === 'calorimetry-run' ? result.value : null;
+      if (!c) return;
+      writeCalorimetryRun(report, item, c);
+      return;
+    }
   }
+}
+
+/** A calorimetry run: its ΔH with uncertainty, the method, each correction applied or not, the run's cautions. */
+function writeCalorimetryRun(
+  report: Report,
+  item: Extract<SetItem, { kind: 'calorimetry-run' }>,
+  c: CalorimetryRunValue,
+): void {
+  report.para(typesetEquation(c.equation), { size: 12 });
+  report.doc.moveDown(0.2);
+  if (c.runKind === 'constant-pressure') {
+    const r = c.result;
+    report.para(`ΔH = ${energy(r.deltaH)} per mole of reaction as written (measured)`, { font: 'bold' });
+    report.para(
+      `q = ${valueWithUncertainty(r.q.value, r.q.uncertainty)} kJ; corrected ΔT = ${valueWithUncertainty(r.deltaT.value, r.deltaT.uncertainty)} K; extent ξ = ${plainFigure(r.extent.value)} mol (limiting ${typesetFormula(r.limiting.species)})`,
+    );
+    report.para(r.basis, { size: 9.5 });
+  } else {
+    const r = c.result;
+    report.para(`ΔcH° = ${energy(r.deltaCH)} of the sample (measured)`, { font: 'bold' });
+    report.para(
+      `ΔcU = ${energy(r.deltaCU)}; massic energy ${valueWithUncertainty(r.massicEnergy.value, r.massicEnergy.uncertainty)} J g⁻¹; energy equivalent ε = ${valueWithUncertainty(r.energyEquivalent.value, r.energyEquivalent.uncertainty)} J K⁻¹`,
+    );
+    report.para(
+      r.deltaFH
+        ? `ΔfH° of the sample by Hess's law = ${energy(r.deltaFH)}, with ${r.auxiliary.map((a) => `ΔfH°(${typesetFormula(a.key)}) [${a.source.key}]`).join(', ')} at library revision ${r.libraryRevision ?? '—'}`
+        : 'ΔfH° of the sample: not derived (a product value is missing from the library).',
+    );
+    if (r.energyEquivalent.certificate)
+      report.para(`Calibrant certificate: ${r.energyEquivalent.certificate.citation}`, { size: 9.5 });
+  }
+  const summary = calorimetryRunSummary(item.inputs, c);
+  report.para(`Method: ${summary.method}`, { size: 9.5 });
+  report.para(
+    c.result.uncertaintyMethod ? `Uncertainty: ${c.result.uncertaintyMethod}` : 'Uncertainty: standard (k = 1).',
+    { size: 8.5, color: MUTED },
+  );
+  report.doc.moveDown(0.2);
+  report.table(
+    ['Correction', 'Applied', 'Detail'],
+    summary.corrections.map((line) => [line.name, line.applied ? 'applied' : 'not applied', line.detail]),
+    [0.3, 0.14, 0.56],
+  );
+  if (item.evidence) report.para(`Readings file: ${item.evidence.fileName}`, { size: 9, color: MUTED });
+  if (item.note) report.para(item.note, { size: 9.5 });
+  if (c.result.warnings.length > 0)
+    report.bullets(
+      c.result.warnings.map((w) => w.message),
+      8.5,
+    );
+  report.bullets(c.result.cautions, 8.5);
 }
 
 /** The report as PDF bytes. */

@@ -1,6 +1,7 @@
 import { ChemistryError } from '@shared/chemistry/index';
 import { BATCH_SCREENING_CAUTIONS } from '@shared/chemistry/thermo/index';
 import { itemLabel } from '@shared/reaction-sets/diff';
+import type { BombResult, ConstantPressureResult } from '@shared/schemas/calorimetry';
 import type { DeriveResult } from '@shared/schemas/derive';
 import type { Source } from '@shared/schemas/library';
 import type { ReactionEnthalpyResult } from '@shared/schemas/reaction-enthalpy';
@@ -10,6 +11,7 @@ import type { ReactionSetRow } from '../db/tables/index';
 import { AppError } from '../errors';
 import { presentSource } from '../library/present';
 import { selectedValue, type LibraryCache, type LibrarySnapshot } from '../library/snapshot';
+import { reduceBomb, reduceConstantPressure } from './calorimetry.service';
 import { deriveReactionEnthalpy } from './derive.service';
 import { snapshotFor } from './library.service';
 import { evaluateReactionEnthalpy, evaluateReactionHeat, temperatureOf } from './reaction-enthalpy.service';
@@ -268,13 +270,8 @@ async function evaluateItem(ctx: ServiceContext, snapshot: LibrarySnapshot, item
       }
       case 'note':
         return { result: { ...base, kind: 'note', error: null, value: null }, sourceIds: [], fromMemory: [] };
-      default:
-        // Calorimetry runs are kept as sent until their evaluation lands.
-        return {
-          result: { ...base, kind: 'calorimetry-run', error: null, value: null },
-          sourceIds: [],
-          fromMemory: [],
-        };
+      case 'calorimetry-run':
+        return await evaluateCalorimetryRun(ctx, revision, item);
     }
   } catch (error) {
     return {
@@ -285,12 +282,57 @@ async function evaluateItem(ctx: ServiceContext, snapshot: LibrarySnapshot, item
   }
 }
 
+/**
+ * A calorimetry run reduced again from its inputs (never from a stored result), a bomb run with
+ * the library's product values at the set's revision whatever revision its inputs name.
+ */
+async function evaluateCalorimetryRun(
+  ctx: ServiceContext,
+  revision: number,
+  item: Extract<SetItem, { kind: 'calorimetry-run' }>,
+): Promise<Evaluated> {
+  const base = { itemId: item.id, kind: 'calorimetry-run' as const, error: null };
+  if (item.runKind === 'constant-pressure') {
+    const reply = await reduceConstantPressure(ctx, item.inputs);
+    const result = JSON.parse(reply.text) as ConstantPressureResult;
+    return {
+      result: {
+        ...base,
+        value: { runKind: 'constant-pressure', equation: result.equation, deltaH: result.deltaH, result, sources: [] },
+      },
+      sourceIds: [],
+      fromMemory: [],
+    };
+  }
+  const reply = await reduceBomb(ctx, { ...item.inputs, revision });
+  const result = JSON.parse(reply.text) as BombResult;
+  const used = result.deltaFH === null ? [] : result.auxiliary;
+  return {
+    result: {
+      ...base,
+      value: {
+        runKind: 'bomb',
+        equation: result.combustion.equation,
+        deltaH: result.deltaCH,
+        result,
+        sources: [...new Set(used.map((a) => a.source.key))],
+      },
+    },
+    sourceIds: [...new Set(used.map((a) => a.source.id))],
+    fromMemory: used.filter((a) => a.provenance === 'memory').map((a) => a.key),
+  };
+}
+
 /** The cautions every reader of a set sees, whatever it holds. */
 function cautionsFor(evaluated: Evaluated[], revision: number): string[] {
   const cautions = [
     'Heat figures here are thermodynamic screening values: they give the heat a reaction can release, not how fast, and say nothing about gas evolution, decomposition or heat removal at scale.',
     ...BATCH_SCREENING_CAUTIONS.slice(3),
   ];
+  // Calorimetry runs bring their own: high-pressure oxygen, runaway at scale, the maker's instructions.
+  for (const e of evaluated)
+    if (e.result.kind === 'calorimetry-run' && e.result.value)
+      for (const caution of e.result.value.result.cautions) if (!cautions.includes(caution)) cautions.push(caution);
   const memory = [...new Set(evaluated.flatMap((e) => e.fromMemory))].sort();
   if (memory.length > 0)
     cautions.push(
@@ -386,6 +428,11 @@ function headlineOf(result: ItemResult): Energy | null {
       return result.value.library;
     case 'derivation':
       return result.value.deltaH;
+    case 'calorimetry-run':
+      // A bomb run's ΔfH° is what a revision can change (its ΔcH° rests on the readings alone).
+      return result.value.runKind === 'bomb'
+        ? (result.value.result.deltaFH ?? result.value.deltaH)
+        : result.value.deltaH;
     default:
       return null;
   }
@@ -408,7 +455,7 @@ export async function revisionChanges(
   const byItem = new Map(row.items.map((i) => [i.id, i]));
   const afterById = new Map((after?.results ?? []).map((r) => [r.itemId, r]));
   const items = before.results
-    .filter((r) => r.kind !== 'note' && r.kind !== 'calorimetry-run')
+    .filter((r) => r.kind !== 'note')
     .map((b) => {
       const a = afterById.get(b.itemId) ?? b;
       const old = headlineOf(b);

@@ -1,4 +1,4 @@
-import { SET_EXPORT_FORMAT, type SetExport } from '@shared/schemas/reaction-sets';
+import { SET_EXPORT_FORMAT, type SetEvaluation, type SetExport } from '@shared/schemas/reaction-sets';
 import type { ServiceContext } from '../context';
 import type { ReactionSetRow } from '../db/tables/index';
 import { FileDownload } from '../lib/file-reply';
@@ -56,6 +56,15 @@ function cachedPdf(key: string, make: () => Promise<Buffer>): Promise<Buffer> {
   return pdf;
 }
 
+/** The certificates the set's bomb runs were calibrated against, as cited in the runs. */
+function calibrantCertificates(evaluation: SetEvaluation): string[] {
+  return evaluation.results.flatMap((r) =>
+    r.kind === 'calorimetry-run' && r.value?.runKind === 'bomb' && r.value.result.energyEquivalent.certificate
+      ? [r.value.result.energyEquivalent.certificate.citation]
+      : [],
+  );
+}
+
 async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFormat): Promise<FileDownload> {
   const evaluation = await evaluationOfSet(ctx, set);
   const state = stateOf(set);
@@ -76,7 +85,13 @@ async function fileOf(ctx: ServiceContext, set: ReactionSetRow, format: ExportFo
       return file(`${JSON.stringify(document, null, 2)}\n`);
     }
     case 'bib':
-      return file(setBibtex(evaluation.sources, { title: set.title, revision: evaluation.libraryRevision }));
+      return file(
+        setBibtex(
+          evaluation.sources,
+          { title: set.title, revision: evaluation.libraryRevision },
+          calibrantCertificates(evaluation),
+        ),
+      );
     case 'pdf': {
       const key = `${set.id}|${set.version}|${evaluation.libraryRevision}|${evaluation.latestRevision}|${evaluation.evaluatedAt}`;
       return file(

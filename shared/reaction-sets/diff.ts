@@ -30,8 +30,10 @@ export function itemLabel(item: SetItem): string {
       const first = item.text.split('\n')[0]!.trim();
       return `${kind}: ${first.length > 60 ? `${first.slice(0, 59)}…` : first || '(empty)'}`;
     }
-    default:
-      return kind;
+    case 'calorimetry-run':
+      return item.runKind === 'bomb'
+        ? `${kind}: combustion of ${item.inputs.sample.formula}(${item.inputs.sample.phase})`
+        : `${kind}: ${item.inputs.reaction.equation}`;
   }
 }
 

@@ -5,7 +5,7 @@ import { givenReactionSchema } from './derive';
 import { revisionNumberSchema, sourceSchema } from './library';
 import { provenanceSchema } from './library-core';
 import { amountInputSchema, massUnitSchema, temperatureInputSchema, warningSchema } from './reaction-enthalpy';
-import { calorimetryRunItemSchema } from './reaction-sets-calorimetry';
+import { calorimetryRunItemSchema, calorimetryRunValueSchema } from './reaction-sets-calorimetry';
 import { plainText } from './text';
 
 /**
@@ -406,7 +406,7 @@ export const itemResultSchema = z.discriminatedUnion('kind', [
   result('derivation', derivationValue),
   result('quantities', quantitiesValue),
   result('note', z.null()),
-  result('calorimetry-run', z.null()),
+  result('calorimetry-run', calorimetryRunValueSchema),
 ]);
 export type ItemResult = z.infer<typeof itemResultSchema>;
 export type ReactionItemValue = z.infer<typeof reactionValue>;

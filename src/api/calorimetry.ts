@@ -56,7 +56,7 @@ export async function amendmentsAvailable(): Promise<boolean> {
   return entry !== undefined && 'post' in entry[1];
 }
 
-/** Opens a library amendment carrying the run (curators review it). Returns the server's reply as it is. */
-export function proposeAmendment(body: AmendmentBody): Promise<unknown> {
-  return http.post('/amendments', body, { schema: z.unknown() });
+/** Opens a library amendment carrying the run (curators review it); the draft's id for its evidence. */
+export function proposeAmendment(body: AmendmentBody): Promise<{ id: string }> {
+  return http.post('/amendments', body, { schema: z.looseObject({ id: z.string() }) });
 }

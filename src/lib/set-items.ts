@@ -3,6 +3,7 @@
  * an item with its inputs. Pure, so both directions are tested without Vue.
  */
 import type { RouteLocationRaw } from 'vue-router';
+import type { CalorimetryRunInput } from '@shared/schemas/calorimetry-runs';
 import type { GivenReaction } from '@shared/schemas/derive';
 import type { AmountInputs, RouteChoice, SetItemInput } from '@shared/schemas/reaction-sets';
 import type { TemperatureInput } from '@shared/schemas/reaction-enthalpy';
@@ -41,9 +42,45 @@ export function derivationItem(input: {
   };
 }
 
-/** Where an item opens again with its inputs; null for items no page edits (notes). */
-export function itemOpenLink(item: SetItemInput): RouteLocationRaw | null {
+/** A run as the calorimetry page holds it: the label is optional (one kind at a time, so `inputs` stays typed). */
+export type CalorimetryRunDraft = CalorimetryRunInput extends infer R
+  ? R extends CalorimetryRunInput
+    ? Omit<R, 'label'> & { label?: string | undefined }
+    : never
+  : never;
+
+/**
+ * A calorimetry run as a set item: its inputs and readings file, and the team run it was saved as
+ * (if it was). Never its result: the server reduces the inputs again when the set is evaluated.
+ */
+export function calorimetryRunItem(run: CalorimetryRunDraft, fromRun: string | null = null): SetItemInput {
+  const meta = {
+    kind: 'calorimetry-run' as const,
+    ...(run.label?.trim() ? { label: run.label.trim() } : {}),
+    ...(run.note ? { note: run.note } : {}),
+    evidence: run.evidence ?? null,
+    fromRun,
+  };
+  return run.kind === 'bomb'
+    ? { ...meta, runKind: 'bomb', inputs: run.inputs }
+    : { ...meta, runKind: 'constant-pressure', inputs: run.inputs };
+}
+
+/** The page an item opens in, for the link's words. */
+export function itemOpenPage(item: SetItemInput): 'the workbench' | 'calorimetry' {
+  return item.kind === 'calorimetry-run' ? 'calorimetry' : 'the workbench';
+}
+
+/**
+ * Where an item opens again with its inputs; null for items no page edits (notes). A calorimetry
+ * run is too large for an address: the calorimetry page reads it from the set (`where`), by id.
+ */
+export function itemOpenLink(item: SetItemInput, where?: { teamId: string; setId: string }): RouteLocationRaw | null {
   switch (item.kind) {
+    case 'calorimetry-run':
+      return where && item.id
+        ? { name: 'calorimetry', query: { team: where.teamId, set: where.setId, item: item.id } }
+        : null;
     case 'reaction':
     case 'quantities':
     case 'given-reaction': {
@@ -68,4 +105,14 @@ export function workbenchQuery(
     equation,
     temperature: match ? { value: Number(match[1]), unit: match[2] as TemperatureInput['unit'] } : null,
   };
+}
+
+/** Reads the calorimetry page's `?team=…&set=…&item=…` back (what {@link itemOpenLink} wrote). */
+export function calorimetryQuery(
+  query: Record<string, unknown>,
+): { teamId: string; setId: string; itemId: string } | null {
+  const { team, set, item } = query;
+  return typeof team === 'string' && typeof set === 'string' && typeof item === 'string' && team && set && item
+    ? { teamId: team, setId: set, itemId: item }
+    : null;
 }

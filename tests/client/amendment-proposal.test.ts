@@ -28,6 +28,14 @@ const run = {
     q: { value: 2.81, uncertainty: 0.01, unit: 'kJ' },
     deltaH: { value: -56.2, uncertainty: 0.2, unit: 'kJ/mol' },
     extent: { value: 0.05, uncertainty: null, unit: 'mol' },
+    limiting: {
+      term: 0,
+      species: 'HCl(aq)',
+      coefficient: '1',
+      amount: { value: 0.05, uncertainty: null, unit: 'mol' },
+    },
+    heatCapacity: { value: 0, uncertainty: null, unit: 'J/K' },
+    calibration: null,
     concentrations: [{ species: 'HCl(aq)', value: 0.25, unit: 'mol/kg' }],
     basis: 'ΔH at the run’s concentrations.',
   },
@@ -51,5 +59,15 @@ describe('amendmentFromRun', () => {
     expect(entry.source.citation).toContain('Neutralisation 1');
     expect(entry.source.citation).toContain('2026-12-02');
     expect(body.rationale).toContain('run1.csv');
+  });
+
+  it('carries the derivation (q, n, ξ, ΔH) and each correction applied or not in the rationale', () => {
+    const body = amendmentFromRun(run, 'Kestrel Bay');
+    // q = 2.81 kJ, ξ = 0.05 mol: ΔH = −2.81/0.05 = −56.2 kJ/mol (Chang's worked neutralisation, from memory).
+    expect(body.rationale).toContain('q = 2.81 ± 0.01 kJ');
+    expect(body.rationale).toContain('n(HCl(aq)) = 0.05 mol');
+    expect(body.rationale).toContain('ΔH = −q/ξ = -56.2 ± 0.2 kJ/mol');
+    expect(body.rationale).toMatch(/Drift \(heat exchange\) not applied/);
+    expect(body.rationale).toMatch(/Specific heat of the solution not applied \(water's 4\.184/);
   });
 });

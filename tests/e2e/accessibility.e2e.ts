@@ -177,6 +177,35 @@ const consistency: Step = {
     await page.getByTestId('consistency-run').waitFor();
   },
 };
+/** Both calorimetry tabs, each with a reduced run shown (and, signed in, the panel that keeps it). */
+const calorimetry: Step = {
+  name: 'calorimetry, constant pressure with a result',
+  open: async (page) => {
+    await page.goto('/calorimetry');
+    await page.getByRole('textbox', { name: 'Volume of the solution (mL)' }).fill('200');
+    await page.getByRole('textbox', { name: 'Calorimeter heat capacity (J/K)' }).fill('0');
+    await page.getByRole('textbox', { name: 'Initial temperature (°C)' }).fill('22.5');
+    await page.getByRole('textbox', { name: 'Final temperature (°C)' }).fill('25.86');
+    await page.getByRole('textbox', { name: 'Equation as written' }).fill('HCl(aq) + NaOH(aq) -> NaCl(aq) + H2O(l)');
+    await page.getByRole('textbox', { name: 'Amount of the limiting reactant (mol)' }).fill('0.05');
+    await page.getByTestId('cp-reduce').click();
+    await page.getByTestId('cp-deltaH').waitFor();
+  },
+};
+const calorimetryBomb: Step = {
+  name: 'calorimetry, bomb tab with a result',
+  open: async (page) => {
+    await page.getByText('Bomb (constant volume)', { exact: true }).click();
+    await page.getByRole('textbox', { name: 'Sample formula' }).fill('C10H8');
+    await page.getByText('Typed', { exact: true }).click();
+    await page.getByRole('textbox', { name: 'Energy equivalent (J/K)' }).fill('10170');
+    await page.getByRole('textbox', { name: 'Sample runs, run 1: Mass (g)' }).fill('1.435');
+    await page.getByRole('textbox', { name: 'Sample runs, run 1: Corrected rise (K)' }).fill('5.67');
+    await page.getByRole('button', { name: 'Reduce the runs' }).click();
+    await page.getByTestId('bomb-result').waitFor();
+  },
+};
+
 const adminPage = (path: string, name: string, ready: (page: Page) => Promise<void>): Step => ({
   name,
   open: async (page) => {
@@ -190,6 +219,8 @@ const walks: Record<Role | 'anonymous', Step[]> = {
   anonymous: [
     workbenchBalanced,
     deriveGiven,
+    calorimetry,
+    calorimetryBomb,
     {
       name: 'sign-in',
       open: async (page) => {
@@ -262,6 +293,8 @@ const walks: Record<Role | 'anonymous', Step[]> = {
     importReport,
     proposeFromSpecies,
     sets,
+    calorimetry,
+    calorimetryBomb,
   ],
   teamAdmin: [workbenchBalanced, notes, members, sets],
   curator: [workbenchBalanced, account, notes, members, consistency, amendmentQueue, amendmentPage],

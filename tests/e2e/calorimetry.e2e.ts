@@ -1,6 +1,7 @@
 /**
  * Calorimetry: a member uploads a run's time–temperature readings, maps the columns, reduces the
- * run and keeps it with the team. The readings are an invented run, generated here from Newton's
+ * run, keeps it with the team, proposes it to the library with the readings file as evidence,
+ * saves it to a reaction set whose page shows the same ΔH, and opens it back in /calorimetry. The readings are an invented run, generated here from Newton's
  * law with a first-order heat release (tests/shared/chemistry/calorimetry/support.ts).
  */
 import { describe, expect, it } from 'vitest';
@@ -25,7 +26,7 @@ function readingsCsv(): string {
 }
 
 describe('calorimetry page', () => {
-  it('lets a member reduce a constant-pressure run from uploaded readings and save it to the team', async () => {
+  it('lets a member reduce a run from uploaded readings, save it to the team and a set, and propose it', async () => {
     const { page } = browser;
     await signIn(page, 'member');
     await page.getByTestId('nav-calorimetry').click();
@@ -82,5 +83,109 @@ describe('calorimetry page', () => {
     } finally {
       await api.dispose();
     }
+
+    // Propose: the draft amendment carries the run data and the readings file as evidence.
+    await page.getByTestId('propose-run').click();
+    const proposed = page.getByTestId('run-proposed');
+    await expect.poll(() => proposed.textContent(), { timeout: 15_000 }).toContain('as evidence');
+    const amendmentPath = (await proposed.getByRole('link').getAttribute('href'))!;
+    const amendmentId = amendmentPath.split('/').pop()!;
+    const member = await apiAs('member');
+    try {
+      const amendment = (await (await member.api.get(`/api/v1/amendments/${amendmentId}`)).json()) as {
+        rationale: string;
+        files: { name: string; mediaType: string }[];
+      };
+      expect(amendment.files).toEqual([
+        expect.objectContaining({ name: 'neutralisation-run-1.csv', mediaType: 'text/csv' }),
+      ]);
+      expect(amendment.rationale).toMatch(/ΔH = −q\/ξ/);
+      expect(amendment.rationale).toMatch(/Drift \(heat exchange\) applied/);
+    } finally {
+      await member.api.dispose();
+    }
+
+    // Save to a new reaction set; its page shows the server's ΔH for the run, the same figure.
+    const figureOf = (text: string | null) =>
+      Number(
+        (text ?? '')
+          .replace(/[^\d.\u2212-]+/g, ' ')
+          .trim()
+          .replace('\u2212', '-')
+          .split(/\s/)[0],
+      );
+    const pageDeltaH = figureOf(await deltaH.textContent());
+    await page.getByTestId('save-to-set').click();
+    const title = unique('Calorimetry set');
+    await page.getByTestId('new-set-title').locator('input').fill(title);
+    await page.getByTestId('save-to-set-confirm').click();
+    await page.getByTestId('saved-set-link').click();
+    await page.waitForURL(/\/sets\/[^/]+$/);
+    const setFigure = page.getByTestId('item-delta-h');
+    await expect.poll(() => setFigure.count(), { timeout: 20_000 }).toBe(1);
+    // Both are rounded to the uncertainty: they agree within the last digit shown.
+    expect(Math.abs(figureOf(await setFigure.textContent()) - pageDeltaH)).toBeLessThan(0.15);
+    expect(await page.getByTestId('set-results').textContent()).toContain('Readings file: neutralisation-run-1.csv');
+    // The run's own cautions (runaway at scale, acid into water) join the set's.
+    expect(await page.getByTestId('set-cautions').textContent()).toMatch(/run away/);
+    await screenshot(page, 'calorimetry-set');
+
+    // The item opens back in /calorimetry with its inputs, reduced again.
+    await page.getByRole('tab', { name: 'Edit' }).click();
+    await page.getByTestId('open-item-1').click();
+    await page.waitForURL(/\/calorimetry\?/);
+    await page.getByTestId('calorimetry-opened-from').waitFor();
+    await expect.poll(() => page.getByTestId('cp-deltaH').count(), { timeout: 15_000 }).toBe(1);
+    expect(figureOf(await page.getByTestId('cp-deltaH').textContent())).toBeCloseTo(pageDeltaH, 6);
+    expect(await page.getByTestId('cp-loaded-readings').textContent()).toContain('neutralisation-run-1.csv');
+  });
+
+  it('reduces a bomb run with a readings file, buoyancy and a nitric-acid titration', async () => {
+    const { page } = browser;
+    await page.goto('/calorimetry');
+    await page.getByText('Bomb (constant volume)', { exact: true }).click();
+    await page.getByRole('textbox', { name: 'Sample formula' }).fill('C10H8');
+    await page.getByText('Typed', { exact: true }).click();
+    await page.getByRole('textbox', { name: 'Energy equivalent (J/K)' }).fill('10170');
+    const cell = (column: string) => page.getByRole('textbox', { name: `Sample runs, run 1: ${column}` });
+    await cell('Mass (g)').fill('1.435');
+    await cell('u(mass) (g)').fill('0.0001');
+    await cell('Fuse (J)').fill('50');
+    await cell('u(fuse) (J)').fill('2');
+    await cell('Or titrant (mL)').fill('6.0');
+    await cell('u(titrant) (mL)').fill('0.05');
+    await cell('Titrant c (mol/L)').fill('0.1');
+    await cell('Sample density (g/cm³)').fill('1.17');
+    // The rise from readings: a quiet bomb rising by about 5.67 K after firing at 300 s (invented run).
+    const rows = newtonianReadings({
+      k: 1e-4,
+      convergence: 298.5,
+      start: 298.3,
+      rise: 5.67,
+      release: 0.05,
+      mixingTime: 300,
+      step: 5,
+      end: 900,
+    }).map(([t, kelvin]) => `${t},${(kelvin - 273.15).toFixed(4)}`);
+    await page.getByTestId('readings-file').setInputFiles({
+      name: 'naphthalene-run-1.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from(['time_s,temperature_C', ...rows].join('\n'), 'utf8'),
+    });
+    await page.getByRole('textbox', { name: 'Firing time (s)' }).fill('300');
+    await page.getByTestId('bomb-use-readings').click();
+    await expect
+      .poll(() => page.getByTestId('bomb-runs-with-readings').textContent())
+      .toContain('naphthalene-run-1.csv');
+    await page.getByRole('button', { name: 'Reduce the runs' }).click();
+    const result = page.getByTestId('bomb-result');
+    await result.waitFor();
+    // ε·ΔT ≈ 10.17 kJ/K × 5.67 K ≈ 57.7 kJ from 1.435 g of C10H8 (128.17 g/mol): ΔcU ≈ −5.1 × 10³ kJ/mol
+    // (Chang's naphthalene example, from memory; the fuse and nitric-acid energies take a little off).
+    const text = (await result.textContent()) ?? '';
+    const deltaCU = Number(/ΔcU\s*([−-]?[\d.]+)/.exec(text)?.[1]?.replace('\u2212', '-'));
+    expect(deltaCU).toBeLessThan(-4900);
+    expect(deltaCU).toBeGreaterThan(-5300);
+    await screenshot(page, 'calorimetry-bomb');
   });
 });

@@ -265,7 +265,19 @@ describe('GET /api/v1/teams/:teamId/sets/:setId/results', () => {
         },
         { kind: 'reaction', id: 'bad', equation: 'Xq2(g) -> Xq(g)' },
         { kind: 'note', id: 'n', text: 'remember' },
-        { kind: 'calorimetry-run', id: 'cal', label: 'Run 7', data: { points: [1, 2, 3] } },
+        {
+          kind: 'calorimetry-run',
+          id: 'cal',
+          label: 'Run 7',
+          runKind: 'bomb',
+          inputs: {
+            sample: { formula: 'C10H8', phase: 'cr' },
+            energyEquivalent: { value: 10.17, unit: 'kJ/K' },
+            runs: [{ mass: { value: 1.435, unit: 'g' }, temperature: { rise: { value: 5.67, unit: 'K' } } }],
+          },
+          // A result sent with the item is dropped: the server reduces the inputs itself.
+          result: { deltaCH: { value: 1, uncertainty: 0, unit: 'kJ/mol' } },
+        },
       ],
     });
     const res = await member.get(`${setsUrl()}/${set.id}/results`);
@@ -290,18 +302,16 @@ describe('GET /api/v1/teams/:teamId/sets/:setId/results', () => {
     expect(byId.q!.value.direction).toBe('released');
     expect(byId.bad!.error).toMatchObject({ code: expect.any(String), message: expect.stringContaining('Xq') });
     expect(byId.n!.value).toBeNull();
-    expect(byId.cal!.value).toBeNull();
+    // 1.435 g of naphthalene raise a 10.17 kJ/°C bomb by 5.67 °C: ΔcU = −5.15 × 10³ kJ/mol (Chang, from memory).
+    expect((byId.cal!.value.result as { deltaCU: { value: number } }).deltaCU.value / 1000).toBeCloseTo(-5.15, 2);
     expect(res.body.sources.map((s: { key: string }) => s.key)).toContain('codata-1989');
     expect(res.body.cautions.join(' ')).toMatch(/screening/i);
     expect(res.body.cautions.join(' ')).toMatch(/qualified/i);
-    // The calorimetry run is stored as it was sent, opaque.
+    // The calorimetry run is stored as its inputs, without the result it was sent with.
     const stored = await member.get(`${setsUrl()}/${set.id}`);
-    expect(stored.body.items.find((i: { id: string }) => i.id === 'cal')).toEqual({
-      kind: 'calorimetry-run',
-      id: 'cal',
-      label: 'Run 7',
-      data: { points: [1, 2, 3] },
-    });
+    const cal = stored.body.items.find((i: { id: string }) => i.id === 'cal');
+    expect(cal).toMatchObject({ kind: 'calorimetry-run', id: 'cal', label: 'Run 7', runKind: 'bomb' });
+    expect(cal).not.toHaveProperty('result');
   });
 });
 
