@@ -188,4 +188,37 @@ describe('calorimetry page', () => {
     expect(deltaCU).toBeGreaterThan(-5300);
     await screenshot(page, 'calorimetry-bomb');
   });
+
+  it('takes the calorimeter heat capacity from an electrical calibration run', async () => {
+    const { page } = browser;
+    await signIn(page, 'member');
+    await page.getByTestId('nav-calorimetry').click();
+    await page.waitForURL(/\/calorimetry$/);
+    // Before an equation is typed the limiting-reactant select says so instead of showing an index.
+    await expect.poll(() => page.getByTestId('cp-limiting').textContent()).toContain('Type the equation first');
+
+    await page.getByRole('textbox', { name: 'Volume of the solution (mL)' }).fill('100');
+    await page.getByText('From calibration runs').click();
+    const run = page.getByTestId('cp-calibration-run-0');
+    await run.getByRole('textbox', { name: 'Heater current (A)' }).fill('2');
+    await run.getByRole('textbox', { name: 'Heater voltage (V)' }).fill('5');
+    await run.getByRole('textbox', { name: 'Heating time (s)' }).fill('300');
+    await run.getByRole('textbox', { name: 'Temperature change (K)' }).fill('2.5');
+    await run.getByRole('textbox', { name: 'Mass of the contents (g)' }).fill('200');
+    await page.getByRole('textbox', { name: 'Initial temperature (°C)' }).fill('22.0');
+    await page.getByRole('textbox', { name: 'Final temperature (°C)' }).fill('25.0');
+    await page.getByRole('textbox', { name: 'Equation as written' }).fill('HCl(aq) + NaOH(aq) -> NaCl(aq) + H2O(l)');
+    await expect.poll(() => page.getByTestId('cp-limiting').textContent()).toContain('HCl(aq)');
+    await page.getByRole('textbox', { name: 'Amount of the limiting reactant (mol)' }).fill('0.05');
+    await page.getByTestId('cp-reduce').click();
+
+    // Common practice, no source: C = I·V·t/ΔT − m·c = 2 A × 5 V × 300 s / 2.5 K − 200 g × 4.184 J/(g K)
+    // = 1200 − 836.8 = 363.2 J/K (hand arithmetic).
+    const shown = page.getByTestId('cp-calibration-result');
+    await expect.poll(() => shown.textContent()).toContain('363.2');
+    expect(await shown.textContent()).toContain('one calibration run');
+    await screenshot(page, 'calorimetry-calibration-1280');
+    await page.setViewportSize({ width: 390, height: 844 });
+    await screenshot(page, 'calorimetry-calibration-390');
+  });
 });
