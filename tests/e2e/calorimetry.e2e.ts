@@ -217,6 +217,7 @@ describe('calorimetry page', () => {
     const shown = page.getByTestId('cp-calibration-result');
     await expect.poll(() => shown.textContent()).toContain('363.2');
     expect(await shown.textContent()).toContain('one calibration run');
+    await page.setViewportSize({ width: 1280, height: 900 });
     await screenshot(page, 'calorimetry-calibration-1280');
     await page.setViewportSize({ width: 390, height: 844 });
     await screenshot(page, 'calorimetry-calibration-390');
