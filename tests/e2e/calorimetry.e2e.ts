@@ -221,5 +221,8 @@ describe('calorimetry page', () => {
     await screenshot(page, 'calorimetry-calibration-1280');
     await page.setViewportSize({ width: 390, height: 844 });
     await screenshot(page, 'calorimetry-calibration-390');
+    await run.getByText('Hot and cold water').click();
+    await run.getByRole('textbox', { name: 'Final temperature of the mix (°C)' }).waitFor();
+    await run.screenshot({ path: 'tests/e2e/screenshots/calorimetry-calibration-mixing-390.png' });
   });
 });
