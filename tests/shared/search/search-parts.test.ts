@@ -117,8 +117,11 @@ describe('trigram candidates and fuzzy scoring', () => {
         fc.nat(),
         fc.constantFrom(...'aeiouxz'),
         (word, kind, position, letter) => {
-          const query = normalizeText(edit(word, kind, position % word.length, letter));
-          fc.pre(query.length >= 4);
+          const edited = edit(word, kind, position % word.length, letter);
+          const query = normalizeText(edited);
+          // Normalising can fold the edit into a second change ("aa 1 aaa" less its "1" leaves two
+          // spaces, folded into one): such a query is two typos away, outside this property.
+          fc.pre(query === edited && query.length >= 4);
           const index = buildTrigramIndex([word, 'unrelated text']);
           const candidates = trigramCandidates(index, new TrigramScratch(2), query, 10, () => true);
           expect(candidates).toContain(0);
