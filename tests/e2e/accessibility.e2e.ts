@@ -197,7 +197,8 @@ const calorimetryBomb: Step = {
   open: async (page) => {
     await page.getByText('Bomb (constant volume)', { exact: true }).click();
     await page.getByRole('textbox', { name: 'Sample formula' }).fill('C10H8');
-    await page.getByText('Typed', { exact: true }).click();
+    // Scoped: the constant-pressure tab has a 'Typed' choice of its own, still in the page while the tabs switch.
+    await page.getByLabel('Energy equivalent').getByText('Typed', { exact: true }).click();
     await page.getByRole('textbox', { name: 'Energy equivalent (J/K)' }).fill('10170');
     await page.getByRole('textbox', { name: 'Sample runs, run 1: Mass (g)' }).fill('1.435');
     await page.getByRole('textbox', { name: 'Sample runs, run 1: Corrected rise (K)' }).fill('5.67');

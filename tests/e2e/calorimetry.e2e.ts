@@ -145,7 +145,8 @@ describe('calorimetry page', () => {
     await page.goto('/calorimetry');
     await page.getByText('Bomb (constant volume)', { exact: true }).click();
     await page.getByRole('textbox', { name: 'Sample formula' }).fill('C10H8');
-    await page.getByText('Typed', { exact: true }).click();
+    // Scoped: the constant-pressure tab has a 'Typed' choice of its own, still in the page while the tabs switch.
+    await page.getByLabel('Energy equivalent').getByText('Typed', { exact: true }).click();
     await page.getByRole('textbox', { name: 'Energy equivalent (J/K)' }).fill('10170');
     const cell = (column: string) => page.getByRole('textbox', { name: `Sample runs, run 1: ${column}` });
     await cell('Mass (g)').fill('1.435');
