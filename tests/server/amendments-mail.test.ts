@@ -123,6 +123,8 @@ describe('amendment e-mail', () => {
     t.mailer.mode = 'fail';
     const declined = await curator.post(`/api/v1/amendments/${id}/decline`).send({ reason: 'Mail fails.' });
     expect(declined.status).toBe(200);
+    // The decline's news is queued after the reply: wait for it (a slow database server may lag).
+    await t.settle();
     const failing = await sendDailyDigests(t.app.locals.deps);
     expect(failing.failed).toBeGreaterThanOrEqual(1);
     t.mailer.mode = 'deliver';
